@@ -1,0 +1,13 @@
+import type { NextConfig } from "next";
+
+const nextConfig: NextConfig = {
+  poweredByHeader: false,
+  reactStrictMode: true,
+  // Server-side packages that must stay plain Node modules rather than be bundled.
+  serverExternalPackages: ["pg", "pg-copy-streams", "@node-rs/argon2", "nodemailer", "csv-parse"],
+  experimental: {
+    serverActions: { bodySizeLimit: "5mb" },
+  },
+};
+
+export default nextConfig;

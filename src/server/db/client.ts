@@ -1,0 +1,17 @@
+import "server-only";
+import { Kysely, PostgresDialect } from "kysely";
+import pg from "pg";
+import { env } from "../env";
+import type { Database } from "./schema";
+
+// One pool per process; in development it survives hot reloads on globalThis.
+const globalForDb = globalThis as unknown as { lotwardenDb?: Kysely<Database>; lotwardenPool?: pg.Pool };
+
+function create(): Kysely<Database> {
+  const pool = new pg.Pool({ connectionString: env.DATABASE_URL, max: 10 });
+  globalForDb.lotwardenPool = pool;
+  return new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
+}
+
+export const db: Kysely<Database> = globalForDb.lotwardenDb ?? create();
+if (env.NODE_ENV !== "production") globalForDb.lotwardenDb = db;
