@@ -84,3 +84,9 @@ export async function serveApp(profile: Profile, env: Record<string, string>, re
   }
   log(`app is up on ${env.APP_URL} (log: ${started.logFile})`);
 }
+
+export async function startWorker(profile: Profile, env: Record<string, string>, tasks: string): Promise<void> {
+  await stopRecorded(profile.dataDir, "worker");
+  startDetached(profile.dataDir, "worker", process.execPath, ["--import", "tsx", path.join(projectRoot, "src/cli/worker.ts")], { ...process.env, ...env, WORKER_TASKS: tasks }, projectRoot);
+  log(`worker started (${tasks})`);
+}

@@ -1,5 +1,5 @@
 // `npm start`: local services, migrations, demo data, a production build, and the app on 127.0.0.1:3000.
-import { buildIfNeeded, migrate, serveApp } from "./app";
+import { buildIfNeeded, migrate, serveApp, startWorker } from "./app";
 import { log, SetupError } from "./processes";
 import { profile } from "./profile";
 import { startServices } from "./services";
@@ -10,6 +10,7 @@ try {
   await migrate(env);
   const built = buildIfNeeded(env);
   await serveApp(dev, env, built);
+  await startWorker(dev, env, "mail");
   log("");
   log(`Lotwarden is running: ${env.APP_URL}`);
   if (env.MAIL_FAKE_URL) log(`captured e-mail: ${env.APP_URL}/dev/outbox`);

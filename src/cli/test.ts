@@ -3,7 +3,7 @@
 import { spawnSync } from "node:child_process";
 import { existsSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
-import { buildIfNeeded, migrate, serveApp } from "./app";
+import { buildIfNeeded, migrate, serveApp, startWorker } from "./app";
 import { log, SetupError } from "./processes";
 import { profile, projectRoot } from "./profile";
 import { startServices, stopServices } from "./services";
@@ -20,6 +20,7 @@ try {
   await migrate(env);
   buildIfNeeded(env);
   await serveApp(test, env, true);
+  await startWorker(test, env, "mail");
 
   const results = path.join(test.dataDir, "vitest-results.json");
   const args = [path.join(projectRoot, "node_modules/vitest/vitest.mjs"), "run", "--reporter=default", "--reporter=json", `--outputFile.json=${results}`, ...process.argv.slice(2)];

@@ -4,7 +4,7 @@ import pg from "pg";
 import { env } from "../env";
 import type { Database } from "./schema";
 
-// One pool per process; in development it survives hot reloads on globalThis.
+// One pool per process, kept on globalThis so development hot reloads reuse it.
 const globalForDb = globalThis as unknown as { lotwardenDb?: Kysely<Database>; lotwardenPool?: pg.Pool };
 
 function create(): Kysely<Database> {
@@ -14,4 +14,6 @@ function create(): Kysely<Database> {
 }
 
 export const db: Kysely<Database> = globalForDb.lotwardenDb ?? create();
-if (env.NODE_ENV !== "production") globalForDb.lotwardenDb = db;
+globalForDb.lotwardenDb = db;
+/** The same pool, for the session library's adapter (global tables only). */
+export const pool: pg.Pool = globalForDb.lotwardenPool!;

@@ -1,0 +1,75 @@
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { createTestTenant, ownerPool, TEST_PASSWORD, type TestTenant } from "../src/test/tenants";
+import { appUrl, launchBrowser } from "./browser";
+import { firstLink, waitForMessage } from "./mailbox";
+
+let browser: Browser;
+let tenant: TestTenant;
+const pool = ownerPool();
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+  tenant = await createTestTenant(pool, "e2e-identity");
+});
+afterAll(async () => {
+  await browser?.close();
+  await pool.end();
+});
+
+async function signIn(page: Page, email: string, password: string) {
+  await page.goto(`${appUrl}/sign-in`);
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL(`${appUrl}/`);
+}
+
+describe("invite → e-mail → accept → sign in → sign out, in a real browser", () => {
+  it("lets an admin invite an analyst who joins through the e-mailed link", async () => {
+    const admin = await (await browser.newContext()).newPage();
+    await signIn(admin, tenant.users.admin!.email, TEST_PASSWORD);
+    await admin.getByRole("link", { name: "Members" }).click();
+    await admin.waitForURL(`${appUrl}/settings/members`);
+    const newcomer = `newcomer.${Date.now()}@e2e.test`;
+    await admin.getByLabel("E-mail", { exact: true }).fill(newcomer);
+    await admin.getByLabel("Role", { exact: true }).selectOption("analyst");
+    await admin.getByRole("button", { name: "Send invitation" }).click();
+    await admin.getByText("Invitation sent").waitFor();
+
+    const message = await waitForMessage(newcomer, "invitation");
+    expect(message.subject).toContain(tenant.name);
+    const link = firstLink(message, "/invite/");
+
+    const guest = await (await browser.newContext()).newPage();
+    await guest.goto(link);
+    await guest.getByRole("heading", { name: `Join ${tenant.name}` }).waitFor();
+    await guest.getByLabel("Your name").fill("Nadia Newcomer");
+    await guest.getByLabel("Choose a password").fill("a-long-enough-password");
+    await guest.getByRole("button", { name: "Accept and sign in" }).click();
+    await guest.waitForURL(`${appUrl}/`);
+    await guest.getByRole("heading", { name: "Welcome, Nadia Newcomer" }).waitFor();
+    expect(await guest.getByRole("link", { name: "Members" }).count()).toBe(0);
+
+    await guest.getByRole("button", { name: "Sign out" }).click();
+    await guest.waitForURL(`${appUrl}/sign-in`);
+    await guest.goto(`${appUrl}/`);
+    await guest.waitForURL(`${appUrl}/sign-in`);
+
+    await signIn(guest, newcomer, "a-long-enough-password");
+    await guest.getByText("Yield analyst").first().waitFor();
+
+    // The link works once (threat: a forwarded or replayed invitation).
+    const replay = await (await browser.newContext()).newPage();
+    await replay.goto(link);
+    await replay.getByRole("heading", { name: "Invitation not valid" }).waitFor();
+  });
+
+  it("answers an analyst who types an admin page's address with the 404 page (threat: URL guessing)", async () => {
+    const page = await (await browser.newContext()).newPage();
+    await signIn(page, tenant.users.analyst!.email, TEST_PASSWORD);
+    const response = await page.goto(`${appUrl}/settings/members`);
+    expect(response?.status()).toBe(404);
+    await page.getByRole("heading", { name: "Nothing here" }).waitFor();
+  });
+});

@@ -1,0 +1,39 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useActionState } from "react";
+import { Button } from "@/components/ui/button";
+import { FormMessage, TextField } from "@/components/ui/field";
+import { acceptInvitationAction } from "./actions";
+
+type State = Awaited<ReturnType<typeof acceptInvitationAction>> | null;
+
+export function AcceptForm({ token, email, existingUser }: { token: string; email: string; existingUser: boolean }) {
+  const router = useRouter();
+  const [state, submit, pending] = useActionState<State, FormData>(async (_previous, form) => {
+    const result = await acceptInvitationAction(form);
+    if (result.ok) router.replace(result.data.next);
+    return result;
+  }, null);
+  const errors = state && !state.ok ? state.fieldErrors : undefined;
+  return (
+    <form action={submit} className="mt-6 space-y-4" noValidate>
+      <input type="hidden" name="token" value={token} />
+      <FormMessage result={state} />
+      <TextField label="E-mail" name="email-shown" value={email} readOnly disabled />
+      <TextField label="Your name" name="name" autoComplete="name" required errors={errors?.name} />
+      <TextField
+        label={existingUser ? "Your current password" : "Choose a password"}
+        name="password"
+        type="password"
+        autoComplete={existingUser ? "current-password" : "new-password"}
+        required
+        errors={errors?.password}
+        hint={existingUser ? "You already have an account: its password adds this tenant to it." : "At least 12 characters."}
+      />
+      <Button type="submit" disabled={pending} className="w-full py-2">
+        {pending ? "Joining…" : "Accept and sign in"}
+      </Button>
+    </form>
+  );
+}
