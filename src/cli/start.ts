@@ -10,7 +10,7 @@ try {
   await migrate(env);
   const built = buildIfNeeded(env);
   await serveApp(dev, env, built);
-  await startWorker(dev, env, "mail");
+  await startWorker(dev, env, "ingest,mail");
   log("");
   log(`Lotwarden is running: ${env.APP_URL}`);
   if (env.MAIL_FAKE_URL) log(`captured e-mail: ${env.APP_URL}/dev/outbox`);

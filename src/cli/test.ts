@@ -20,7 +20,7 @@ try {
   await migrate(env);
   buildIfNeeded(env);
   await serveApp(test, env, true);
-  await startWorker(test, env, "mail");
+  await startWorker(test, env, "ingest,mail");
 
   const results = path.join(test.dataDir, "vitest-results.json");
   const args = [path.join(projectRoot, "node_modules/vitest/vitest.mjs"), "run", "--reporter=default", "--reporter=json", `--outputFile.json=${results}`, ...process.argv.slice(2)];

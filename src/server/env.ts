@@ -16,6 +16,8 @@ const envSchema = z.object({
   MAIL_FROM: z.string().default("Lotwarden <no-reply@lotwarden.local>"),
   MAIL_FAKE_URL: z.string().url().optional(),
   LOTWARDEN_PROFILE: z.enum(["dev", "test"]).optional(),
+  /** Largest probe file accepted, in bytes (default 4 GiB). */
+  MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(4 * 1024 ** 3),
 });
 
 export type Env = z.infer<typeof envSchema>;

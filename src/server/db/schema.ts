@@ -125,6 +125,133 @@ export interface OutboundEmailsTable {
   sent_at: NullableTimestamp;
 }
 
+export type ProductRules = "western-electric" | "nelson";
+export type DisplayUnit = "S" | "uS" | "G0";
+export type LotStatus = "receiving" | "probed" | "on hold" | "released" | "scrapped";
+export type JobStatus = "queued" | "running" | "done" | "failed";
+
+export interface ProductsTable {
+  tenant_id: string;
+  id: Generated<string>;
+  code: string;
+  name: string;
+  customer_id: string | null;
+  die_width_mm: number;
+  die_height_mm: number;
+  wafer_diameter_mm: number;
+  edge_exclusion_mm: Generated<number>;
+  spec_low_s: number | null;
+  spec_high_s: number | null;
+  window_factor: Generated<number>;
+  nonlinearity_max: Generated<number>;
+  open_below_s: number | null;
+  short_above_s: number | null;
+  yield_floor: number | null;
+  rules: Generated<ProductRules>;
+  die_window: Generated<"static" | "pat">;
+  die_window_k: number | null;
+  display_unit: Generated<DisplayUnit>;
+  device_model: Json | null;
+  created_at: Timestamp;
+  updated_at: Timestamp;
+}
+
+export interface RawFilesTable {
+  tenant_id: string;
+  id: Generated<string>;
+  sha256: string;
+  size_bytes: ColumnType<string, number | string, number | string>;
+  object_key: string;
+  file_name: string | null;
+  uploaded_by: string;
+  uploaded_at: Timestamp;
+}
+
+export interface IngestJobsTable {
+  tenant_id: string;
+  id: Generated<string>;
+  raw_file_id: string;
+  status: Generated<JobStatus>;
+  progress: Generated<number>;
+  lot_number: string | null;
+  product_code: string | null;
+  chuck_temperature_k: number | null;
+  attempts: Generated<number>;
+  run_after: Timestamp;
+  lease_until: NullableTimestamp;
+  started_at: NullableTimestamp;
+  finished_at: NullableTimestamp;
+  error_code: string | null;
+  error_line: number | null;
+  error_message: string | null;
+  warnings: Json;
+  report: Json | null;
+  created_by: string;
+  created_at: Timestamp;
+}
+
+export interface LotsTable {
+  tenant_id: string;
+  id: Generated<string>;
+  lot_number: string;
+  product_id: string;
+  customer_id: string | null;
+  status: Generated<LotStatus>;
+  chuck_temperature_k: number;
+  station: string | null;
+  probed_at: Timestamp;
+  attributes: Json;
+  tested: Generated<number>;
+  pass: Generated<number>;
+  out_of_window: Generated<number>;
+  median_conductance_s: number | null;
+  last_job_id: string | null;
+  status_changed_at: Timestamp;
+  released_at: NullableTimestamp;
+  created_at: Timestamp;
+  updated_at: Timestamp;
+}
+
+export interface WafersTable {
+  tenant_id: string;
+  lot_id: string;
+  slot: number;
+  tested: number;
+  pass: number;
+  inked: Generated<number>;
+  out_of_window: Generated<number>;
+  median_conductance_s: number | null;
+  bin_counts: Json;
+  window_low_s: number | null;
+  window_high_s: number | null;
+  job_id: string;
+  probed_at: Timestamp;
+}
+
+export interface DiesTable {
+  tenant_id: string;
+  lot_id: string;
+  wafer_slot: number;
+  x: number;
+  y: number;
+  conductance_s: number | null;
+  offset_a: number | null;
+  r2: number | null;
+  points_in_window: number;
+  window_v: number;
+  nonlinearity: number | null;
+  nonlinearity_window_only: boolean;
+  modes: number | null;
+  bin: string;
+  reason: string | null;
+  temperature_k: number;
+  site: string | null;
+  out_of_window: Generated<boolean>;
+  inked: Generated<boolean>;
+  points: number;
+  sweep: Buffer;
+}
+
 export interface Database {
   tenants: TenantsTable;
   users: UsersTable;
@@ -137,4 +264,10 @@ export interface Database {
   security_events: SecurityEventsTable;
   password_resets: PasswordResetsTable;
   outbound_emails: OutboundEmailsTable;
+  products: ProductsTable;
+  raw_files: RawFilesTable;
+  ingest_jobs: IngestJobsTable;
+  lots: LotsTable;
+  wafers: WafersTable;
+  dies: DiesTable;
 }

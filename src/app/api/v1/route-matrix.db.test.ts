@@ -13,6 +13,7 @@ interface Case {
   route: string; // the route folder under api/v1, e.g. "customers"
   path: (t: TestTenant) => string;
   body?: (t: TestTenant) => unknown;
+  rawBody?: string;
   expect: Partial<Record<Caller, number>> & { default?: number };
 }
 
@@ -27,6 +28,16 @@ const CASES: Case[] = [
     body: () => ({ name: `Matrix customer ${unique()}` }),
     expect: { anonymous: 401, admin: 201, otherTenantAdmin: 201, default: 403 },
   },
+  { method: "GET", route: "products", path: () => "/api/v1/products", expect: { anonymous: 401, customer: 403, otherCustomer: 403, default: 200 } },
+  { method: "POST", route: "products", path: () => "/api/v1/products", body: () => ({}), expect: { anonymous: 401, analyst: 403, customer: 403, otherCustomer: 403, default: 422 } },
+  { method: "GET", route: "products/[code]", path: () => "/api/v1/products/NO-SUCH", expect: { anonymous: 401, customer: 403, otherCustomer: 403, default: 404 } },
+  { method: "PATCH", route: "products/[code]", path: () => "/api/v1/products/NO-SUCH", body: () => ({ name: "x" }), expect: { anonymous: 401, analyst: 403, customer: 403, otherCustomer: 403, default: 404 } },
+  { method: "GET", route: "jobs", path: () => "/api/v1/jobs", expect: { anonymous: 401, customer: 403, otherCustomer: 403, default: 200 } },
+  { method: "GET", route: "jobs/[id]", path: () => `/api/v1/jobs/${crypto.randomUUID()}`, expect: { anonymous: 401, customer: 403, otherCustomer: 403, default: 404 } },
+  { method: "GET", route: "lots", path: () => "/api/v1/lots", expect: { anonymous: 401, default: 200 } },
+  { method: "GET", route: "lots/[lot]", path: () => "/api/v1/lots/NO-SUCH-LOT", expect: { anonymous: 401, default: 404 } },
+  { method: "GET", route: "lots/[lot]/dies", path: () => "/api/v1/lots/NO-SUCH-LOT/dies", expect: { anonymous: 401, customer: 403, otherCustomer: 403, default: 404 } },
+  { method: "POST", route: "lots/ingest", path: () => "/api/v1/lots/ingest", rawBody: "not,a,probe,file\n", expect: { anonymous: 401, analyst: 403, customer: 403, otherCustomer: 403, default: 422 } },
   { method: "POST", route: "session", path: () => "/api/v1/session", body: () => ({ email: `nobody-${unique()}@example.test`, password: "x" }), expect: { default: 401 } },
   { method: "DELETE", route: "session", path: () => "/api/v1/session", expect: { default: 204 } },
 ];
@@ -58,9 +69,11 @@ describe("route × role matrix over the real app (threat: a route that forgets i
       for (const caller of CALLERS) {
         const key = keyFor(caller);
         const headers: Record<string, string> = { ...(key ? { authorization: `Bearer ${key}` } : {}) };
-        const body = c.body?.(home);
-        if (body !== undefined) headers["content-type"] = "application/json";
-        const response = await fetch(`${appUrl}${c.path(home)}`, { method: c.method, headers, body: body === undefined ? undefined : JSON.stringify(body) });
+        const json = c.body?.(home);
+        if (json !== undefined) headers["content-type"] = "application/json";
+        if (c.rawBody !== undefined) headers["content-type"] = "text/csv";
+        const body = c.rawBody ?? (json === undefined ? undefined : JSON.stringify(json));
+        const response = await fetch(`${appUrl}${c.path(home)}`, { method: c.method, headers, body });
         got[caller] = response.status;
         want[caller] = c.expect[caller] ?? c.expect.default!;
         if (response.status >= 400) {

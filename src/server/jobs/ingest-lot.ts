@@ -1,0 +1,190 @@
+import "server-only";
+import { pipeline } from "node:stream/promises";
+import { Readable } from "node:stream";
+import type pg from "pg";
+import { from as copyFrom } from "pg-copy-streams";
+import { ProbeFileError, type ProbeFileSummary, readProbeFile } from "@/domain/probe-file";
+import { analyzeDieArrays, type ExtractionSettings } from "@/domain/transport";
+import type { IngestReport } from "@/lib/schemas/ingest";
+import { pool } from "../db/client";
+import { getProduct } from "../db/queries/products";
+import { systemScope, withScope } from "../db/scope";
+import { AppError } from "../http/errors";
+import { openRawFile } from "../storage/raw-files";
+import { CREATE_TMP_DIES, dieCopyLine, TMP_DIE_COLUMNS } from "./die-copy";
+import { refreshLotTotals, replaceWafers } from "./lot-aggregates";
+import { type ClaimedJob, failJob, heartbeat, retryJob } from "./queue";
+import { concatSweeps, decodeSweep, encodeSweep } from "./sweep-codec";
+
+const RESERVED_METADATA = new Set(["lot", "product", "chuck_temperature_k"]);
+const dieKey = (wafer: number, x: number, y: number) => wafer * 1e10 + (x + 50_000) * 1e5 + (y + 50_000);
+
+interface Context {
+  job: ClaimedJob;
+  settings: ExtractionSettings;
+  chuckTemperatureK: number;
+}
+
+/** Streams the raw file through the probe-file reader and the §5 computation into tmp_dies with COPY. */
+async function streamDies(client: pg.PoolClient, ctx: Context, sizeBytes: number, objectKey: string) {
+  const seen = new Set<number>();
+  const repeated = new Set<number>();
+  let header: { metadata: Record<string, string>; ignoredColumns: string[] } | null = null;
+  let bytesRead = 0;
+  let lastBeat = Date.now();
+  let leaseLost = false;
+  const reader = readProbeFile(await openRawFile(objectKey), { errorBudgetFraction: await errorBudget(ctx.job.tenantId), onProgress: (b) => (bytesRead = b) });
+
+  async function* lines(): AsyncGenerator<string> {
+    for (;;) {
+      const next = await reader.next();
+      if (next.done) {
+        summary = next.value;
+        return;
+      }
+      const item = next.value;
+      if (item.kind === "header") {
+        header = item.header;
+        continue;
+      }
+      const f = item.fragment;
+      const key = dieKey(f.wafer, f.x, f.y);
+      if (seen.has(key)) repeated.add(key);
+      else seen.add(key);
+      const temperatureK = f.temperatureK ?? ctx.chuckTemperatureK;
+      const result = analyzeDieArrays(f.biasV, f.currentA, f.compliance, f.length, ctx.settings, temperatureK);
+      yield dieCopyLine(f.wafer, f.x, f.y, result, f.site, f.length, encodeSweep(f.biasV, f.currentA, f.compliance, f.length), f.firstLine);
+      if (Date.now() - lastBeat > 5000) {
+        lastBeat = Date.now();
+        if (!(await heartbeat(ctx.job, (0.9 * bytesRead) / Math.max(1, sizeBytes)))) leaseLost = true;
+        if (leaseLost) throw new Error("the job's lease was taken over by another worker");
+      }
+    }
+  }
+  let summary: ProbeFileSummary | null = null;
+  const copy = client.query(copyFrom(`copy tmp_dies (${TMP_DIE_COLUMNS.join(", ")}) from stdin`));
+  await pipeline(Readable.from(lines(), { objectMode: false, highWaterMark: 64 }), copy);
+  return { summary: summary!, header: header!, repeated, dies: seen.size };
+}
+
+async function errorBudget(tenantId: string): Promise<number> {
+  return withScope(systemScope(tenantId, "ingest"), async (tx) => (await tx.selectFrom("tenants").select("error_budget_fraction").where("id", "=", tenantId).executeTakeFirstOrThrow()).error_budget_fraction);
+}
+
+/** A die split over the file arrives as several rows of tmp_dies: join their points and compute it once. */
+async function mergeRepeatedDies(client: pg.PoolClient, ctx: Context, repeated: Set<number>): Promise<void> {
+  if (repeated.size === 0) return;
+  const { rows } = await client.query(
+    `select wafer_slot, x, y, temperature_k, site, sweep, first_line from tmp_dies
+      where (wafer_slot::float8 * 1e10 + (x + 50000)::float8 * 1e5 + (y + 50000)) = any($1::float8[]) order by wafer_slot, x, y, first_line`,
+    [[...repeated]],
+  );
+  const groups = new Map<number, typeof rows>();
+  for (const r of rows) {
+    const key = dieKey(r.wafer_slot, r.x, r.y);
+    groups.set(key, [...(groups.get(key) ?? []), r]);
+  }
+  for (const parts of groups.values()) {
+    const first = parts[0]!;
+    const other = parts.find((p) => p.temperature_k !== first.temperature_k);
+    if (other) throw new ProbeFileError("mixed_temperature", other.first_line, `die (${first.wafer_slot}, ${first.x}, ${first.y}) has points at ${first.temperature_k} K and at ${other.temperature_k} K`);
+    const sweep = concatSweeps(parts.map((p) => decodeSweep(p.sweep)));
+    const result = analyzeDieArrays(sweep.biasV, sweep.currentA, sweep.compliance, sweep.length, ctx.settings, first.temperature_k);
+    await client.query("delete from tmp_dies where wafer_slot = $1 and x = $2 and y = $3", [first.wafer_slot, first.x, first.y]);
+    const line = dieCopyLine(first.wafer_slot, first.x, first.y, result, first.site, sweep.length, encodeSweep(sweep.biasV, sweep.currentA, sweep.compliance, sweep.length), first.first_line);
+    const copy = client.query(copyFrom(`copy tmp_dies (${TMP_DIE_COLUMNS.join(", ")}) from stdin`));
+    await pipeline(Readable.from([line]), copy);
+  }
+}
+
+async function upsertLot(client: pg.PoolClient, ctx: Context, productId: string, customerId: string | null, productCode: string, metadata: Record<string, string>): Promise<{ id: string; probedAt: Date }> {
+  const attributes = Object.fromEntries(Object.entries(metadata).filter(([k]) => !RESERVED_METADATA.has(k)));
+  const measured = metadata.measured_at ? new Date(metadata.measured_at) : null;
+  const probedAt = measured && !Number.isNaN(measured.getTime()) ? measured : new Date();
+  const existing = await client.query("select id, status, product_id from lots where tenant_id = $1 and lot_number = $2 for update", [ctx.job.tenantId, ctx.job.lotNumber]);
+  const lot = existing.rows[0];
+  if (lot) {
+    if (lot.product_id !== productId) throw new AppError("conflict", `Lot ${ctx.job.lotNumber} belongs to another product, not ${productCode}`);
+    if (lot.status === "released" || lot.status === "scrapped") throw new AppError("conflict", `Lot ${ctx.job.lotNumber} is ${lot.status}: put it on hold before adding probe data`);
+    await client.query(
+      `update lots set attributes = attributes || $3::jsonb, station = coalesce($4, station), probed_at = greatest(probed_at, $5), chuck_temperature_k = $6,
+              status = case when status = 'receiving' then 'probed' else status end, last_job_id = $7, updated_at = now()
+        where tenant_id = $1 and id = $2`,
+      [ctx.job.tenantId, lot.id, JSON.stringify(attributes), metadata.station ?? null, probedAt, ctx.chuckTemperatureK, ctx.job.id],
+    );
+    return { id: lot.id, probedAt };
+  }
+  const inserted = await client.query(
+    `insert into lots (tenant_id, lot_number, product_id, customer_id, status, chuck_temperature_k, station, probed_at, attributes, last_job_id)
+     values ($1, $2, $3, $4, 'probed', $5, $6, $7, $8, $9) returning id`,
+    [ctx.job.tenantId, ctx.job.lotNumber, productId, customerId, ctx.chuckTemperatureK, metadata.station ?? null, probedAt, JSON.stringify(attributes), ctx.job.id],
+  );
+  return { id: inserted.rows[0].id, probedAt };
+}
+
+/**
+ * Runs one claimed ingest job in a single transaction: a failure or a crash leaves the lot as it was (§4).
+ * The job is marked done in the same transaction, fenced by its attempt number.
+ */
+export async function runIngestJob(job: ClaimedJob): Promise<"done" | "failed" | "retry"> {
+  const started = Date.now();
+  const scope = systemScope(job.tenantId, `ingest job ${job.id}`);
+  const { product, file, customerId } = await withScope(scope, async (tx) => {
+    const p = await getProduct(tx, job.productCode).catch(() => null);
+    const f = await tx.selectFrom("raw_files").select(["object_key", "size_bytes"]).where("id", "=", job.rawFileId).executeTakeFirstOrThrow();
+    return { product: p, file: f, customerId: p?.customerId ?? null };
+  });
+  if (!product) {
+    await failJob(job, { code: "unknown_product", line: null, message: `unknown product "${job.productCode}"` });
+    return "failed";
+  }
+  const settings: ExtractionSettings = {
+    windowFactor: product.windowFactor, nonlinearityMax: product.nonlinearityMax, openBelowS: product.openBelowS,
+    shortAboveS: product.shortAboveS, specLowS: product.specLowS, specHighS: product.specHighS,
+  };
+  const ctx: Context = { job, settings, chuckTemperatureK: job.chuckTemperatureK ?? 300 };
+  const client = await pool.connect();
+  let warnings: unknown[] = [];
+  try {
+    await client.query("begin");
+    await client.query("select set_config('app.tenant_id', $1, true)", [job.tenantId]);
+    await client.query(CREATE_TMP_DIES);
+    const streamed = await streamDies(client, ctx, Number(file.size_bytes), file.object_key);
+    warnings = streamed.summary.warnings;
+    await mergeRepeatedDies(client, ctx, streamed.repeated);
+    const lot = await upsertLot(client, ctx, product.id, customerId, product.code, streamed.header.metadata);
+    const wafers = await replaceWafers(client, job.tenantId, lot.id, job.id, lot.probedAt, product.dieWindow, product.dieWindowK);
+    await refreshLotTotals(client, job.tenantId, lot.id);
+    const bins = await client.query<{ bin: string; n: string }>("select bin, count(*) as n from tmp_dies group by bin");
+    const report: IngestReport = {
+      rows: streamed.summary.rows, skippedRows: streamed.summary.skippedRows, warningsOmitted: streamed.summary.warningsOmitted,
+      dies: streamed.dies, wafers, ignoredColumns: streamed.header.ignoredColumns,
+      attributes: Object.fromEntries(Object.entries(streamed.header.metadata).filter(([k]) => !RESERVED_METADATA.has(k))),
+      bins: Object.fromEntries(bins.rows.map((b) => [b.bin, Number(b.n)])), seconds: (Date.now() - started) / 1000,
+    };
+    await client.query("select set_config('app.job_runner', 'on', true)");
+    const done = await client.query(
+      `update ingest_jobs set status = 'done', progress = 1, finished_at = now(), lease_until = null, error_message = null, error_code = null, error_line = null,
+              warnings = $3, report = $4 where tenant_id = $1 and id = $2 and attempts = $5 and status = 'running'`,
+      [job.tenantId, job.id, JSON.stringify(warnings), JSON.stringify(report), job.attempts],
+    );
+    if (done.rowCount !== 1) throw new Error("the job's lease was taken over by another worker");
+    await client.query("commit");
+    return "done";
+  } catch (error) {
+    await client.query("rollback").catch(() => undefined);
+    if (error instanceof ProbeFileError) {
+      await failJob(job, { code: error.code, line: error.line, message: error.message }, warnings);
+      return "failed";
+    }
+    if (error instanceof AppError) {
+      await failJob(job, { code: error.code, line: null, message: error.message }, warnings);
+      return "failed";
+    }
+    console.error(`ingest job ${job.id} attempt ${job.attempts}:`, error);
+    await retryJob(job, error instanceof Error ? error.message : String(error));
+    return "retry";
+  } finally {
+    client.release();
+  }
+}

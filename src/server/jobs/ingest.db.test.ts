@@ -1,0 +1,141 @@
+import { afterAll, describe, expect, it } from "vitest";
+import { api, createSampleProduct, fixture, ingestAndWait, upload, waitForJob } from "@/test/ingest-helpers";
+import { createTestTenant, ownerPool } from "@/test/tenants";
+
+const pool = ownerPool();
+afterAll(() => pool.end());
+
+async function freshTenant(label: string) {
+  const tenant = await createTestTenant(pool, label);
+  await createSampleProduct(tenant);
+  return tenant;
+}
+
+async function lotCount(tenantId: string): Promise<number> {
+  const { rows } = await pool.query("select count(*)::int as n from lots where tenant_id = $1", [tenantId]);
+  return rows[0].n;
+}
+
+describe("probe lot ingest through the API and the worker (§4, §5, §9)", () => {
+  it("turns the sample file into a lot with per-die conductance, and the same bytes again answer the first job", async () => {
+    const tenant = await freshTenant("ingest-good");
+    const first = await upload(tenant, fixture("good-small.csv"));
+    expect(first.status).toBe(202);
+    const { job } = await first.json();
+    const done = await waitForJob(tenant, job.id);
+    expect(done.status).toBe("done");
+    expect(done.report).toMatchObject({ rows: 66, dies: 6, wafers: [1, 2] });
+
+    const again = await upload(tenant, fixture("good-small.csv"));
+    expect(again.status).toBe(200);
+    expect((await again.json()).job.id).toBe(job.id);
+
+    const lot = await (await api(tenant, "analyst", "/api/v1/lots/TW2611-0147")).json();
+    expect(lot).toMatchObject({ lot: "TW2611-0147", product: "VD-NW40", status: "probed", chuckTemperatureK: 300.15, tested: 6 });
+    expect(lot.attributes).toEqual({ station: "PRB-03", measured_at: "2026-11-28T06:40:00Z" });
+    expect(lot.wafers.map((w: { wafer: number; tested: number }) => [w.wafer, w.tested])).toEqual([[1, 3], [2, 3]]);
+
+    const { dies } = await (await api(tenant, "analyst", "/api/v1/lots/TW2611-0147/dies")).json();
+    expect(dies).toHaveLength(6);
+    // The sample's dies are I = G·V with G = 1.2 … 1.7 µS (fixtures/probe/README.md), swept inside the window.
+    const g = dies.map((d: { conductanceS: number }) => d.conductanceS).sort();
+    g.forEach((value: number, i: number) => expect(value).toBeCloseTo((1.2 + 0.1 * i) * 1e-6, 9));
+    const die = dies[0];
+    for (const field of ["wafer", "x", "y", "conductanceS", "offsetA", "r2", "pointsInWindow", "windowV", "nonlinearity", "modes", "bin", "outOfWindow", "temperatureK"]) expect(die).toHaveProperty(field);
+    expect(die.windowV).toBeCloseTo(0.5 * 0.025865, 5); // w·kT/q at 300.15 K
+    expect(die.modes).toBeCloseTo(die.conductanceS / 7.748091729863649e-5, 12);
+    // specHighS 1.65 µS: the 1.7 µS die is HIGH, the rest PASS.
+    expect(dies.filter((d: { bin: string }) => d.bin === "HIGH")).toHaveLength(1);
+  });
+
+  it("exports the dies as CSV with the §9 names as columns, and filters by wafer and bin", async () => {
+    const tenant = await freshTenant("ingest-csv");
+    await ingestAndWait(tenant, fixture("good-small.csv"));
+    const csv = await (await api(tenant, "analyst", "/api/v1/lots/TW2611-0147/dies?format=csv&wafer=2")).text();
+    const [header, ...rows] = csv.trim().split("\n");
+    expect(header!.split(",").slice(0, 13)).toEqual(["wafer", "x", "y", "conductanceS", "offsetA", "r2", "pointsInWindow", "windowV", "nonlinearity", "modes", "bin", "outOfWindow", "temperatureK"]);
+    expect(rows).toHaveLength(3);
+    const pass = await (await api(tenant, "analyst", "/api/v1/lots/TW2611-0147/dies?bin=HIGH")).json();
+    expect(pass.dies.every((d: { bin: string }) => d.bin === "HIGH")).toBe(true);
+  });
+
+  it("reads CRLF with BOM, semicolons with scientific notation, and a die split over the file", async () => {
+    const tenant = await freshTenant("ingest-variants");
+    expect((await ingestAndWait(tenant, fixture("crlf-bom.csv"))).report?.dies).toBe(6);
+    const other = await freshTenant("ingest-variants-2");
+    const mixed = await ingestAndWait(other, fixture("mixed-units.csv"));
+    expect(mixed.status).toBe("done");
+    expect(mixed.report?.ignoredColumns).toEqual(["smu_range"]);
+    const third = await freshTenant("ingest-variants-3");
+    const split = await ingestAndWait(third, fixture("non-consecutive.csv"));
+    expect(split.report?.dies).toBe(2);
+    const { dies } = await (await api(third, "analyst", "/api/v1/lots/TW2611-0147/dies?x=0&y=0&include=sweep")).json();
+    expect(dies[0].points).toBe(dies[0].sweep.biasV.length);
+    expect(dies[0].points).toBeGreaterThan(5);
+  });
+
+  for (const [file, code, line] of [["non-numeric.csv", "bad_value", 9], ["wafer-out-of-range.csv", "wafer_range", 16], ["two-temperatures.csv", "mixed_temperature", 11]] as const) {
+    it(`fails ${file} naming line ${line}, and writes nothing`, async () => {
+      const tenant = await freshTenant(`ingest-${code}`);
+      const job = await ingestAndWait(tenant, fixture(file));
+      expect(job.status).toBe("failed");
+      expect(job.error).toMatchObject({ code, line });
+      expect(job.error!.message).toContain(`line ${line}`);
+      expect(await lotCount(tenant.id)).toBe(0);
+    });
+  }
+
+  for (const [file, line] of [["missing-column.csv", 3], ["unknown-unit.csv", 4]] as const) {
+    it(`refuses ${file} at upload with 422 naming line ${line}, and queues nothing`, async () => {
+      const tenant = await freshTenant("ingest-header");
+      const response = await upload(tenant, fixture(file), "?chuck_temperature_k=300.15");
+      expect(response.status).toBe(422);
+      const body = await response.json();
+      expect(body.error.message).toContain(`line ${line}`);
+      const jobs = await (await api(tenant, "analyst", "/api/v1/jobs")).json();
+      expect(jobs.jobs).toEqual([]);
+    });
+  }
+
+  it("refuses a file whose product disagrees with the upload, naming both", async () => {
+    const tenant = await freshTenant("ingest-mismatch");
+    const response = await upload(tenant, fixture("good-small.csv"), "?product=AA-TF220");
+    expect(response.status).toBe(422);
+    expect((await response.json()).error.message).toMatch(/line 2: the file says product "VD-NW40" but the upload says "AA-TF220"/);
+  });
+
+  it("refuses a product of another tenant as unknown (threat: writing into someone else's product)", async () => {
+    const owner = await freshTenant("ingest-owner");
+    const intruder = await createTestTenant(pool, "ingest-intruder");
+    expect(owner.id).not.toBe(intruder.id);
+    const response = await upload(intruder, fixture("good-small.csv"));
+    expect(response.status).toBe(422);
+    expect((await response.json()).error.message).toContain('unknown product "VD-NW40"');
+  });
+
+  it("keeps a failed re-ingest from touching the lot's earlier wafers", async () => {
+    const tenant = await freshTenant("ingest-atomic");
+    await ingestAndWait(tenant, fixture("good-small.csv"));
+    const bad = await ingestAndWait(tenant, fixture("two-temperatures.csv"));
+    expect(bad.status).toBe("failed");
+    const lot = await (await api(tenant, "analyst", "/api/v1/lots/TW2611-0147")).json();
+    expect(lot.tested).toBe(6);
+  });
+
+  it("marks a die at 77 K swept in 5 mV steps NODATA: too few points inside the thermal window", async () => {
+    const tenant = await freshTenant("ingest-77k");
+    const rows = ["# lot: COLD-0001", "# product: VD-NW40", "# chuck_temperature_k: 77", "wafer,die_x,die_y,bias_mv,current_na"];
+    for (let v = -50; v <= 50; v += 5) rows.push(`1,0,0,${v},${(v * 1.5).toFixed(3)}`);
+    const job = await ingestAndWait(tenant, rows.join("\n") + "\n");
+    expect(job.status).toBe("done");
+    const { dies } = await (await api(tenant, "analyst", "/api/v1/lots/COLD-0001/dies")).json();
+    expect(dies[0].bin).toBe("NODATA");
+    expect(dies[0].reason).toMatch(/within ±3\.32 mV \(need 3\)/);
+  });
+
+  it("lets only engineers and admins upload (analyst 403, customer 403)", async () => {
+    const tenant = await freshTenant("ingest-roles");
+    expect((await upload(tenant, fixture("good-small.csv"), "", "analyst")).status).toBe(403);
+    expect((await upload(tenant, fixture("good-small.csv"), "", "customer")).status).toBe(403);
+  });
+});

@@ -1,0 +1,62 @@
+import "server-only";
+import type pg from "pg";
+
+// Set-based steps after the file is streamed into tmp_dies, all inside the job's one transaction.
+// Wafer median G is taken over the parametric dies (not NODATA, OPEN or SHORT): gross fails would only drag it.
+const PARAMETRIC = "bin not in ('NODATA', 'OPEN', 'SHORT')";
+
+/** Replaces the file's wafers of the lot: old wafers and their dies go, the new ones arrive whole. */
+export async function replaceWafers(client: pg.PoolClient, tenantId: string, lotId: string, jobId: string, probedAt: Date, dieWindow: "static" | "pat", k: number): Promise<number[]> {
+  const { rows } = await client.query<{ wafer_slot: number }>("select distinct wafer_slot from tmp_dies order by 1");
+  const slots = rows.map((r) => r.wafer_slot);
+  await client.query("delete from wafers where tenant_id = $1 and lot_id = $2 and slot = any($3::int[])", [tenantId, lotId, slots]);
+
+  // Dynamic Part Average Testing per wafer (AEC-Q001): median ± k·(IQR/1.35) over the wafer's PASS dies.
+  // A static window needs a frozen baseline (limit set); without one no die is flagged.
+  const windowSql =
+    dieWindow === "pat"
+      ? `select wafer_slot,
+                percentile_cont(0.5) within group (order by conductance_s) - $5 * (percentile_cont(0.75) within group (order by conductance_s) - percentile_cont(0.25) within group (order by conductance_s)) / 1.35 as low,
+                percentile_cont(0.5) within group (order by conductance_s) + $5 * (percentile_cont(0.75) within group (order by conductance_s) - percentile_cont(0.25) within group (order by conductance_s)) / 1.35 as high
+           from tmp_dies where bin = 'PASS' group by wafer_slot`
+      : `select wafer_slot, null::float8 as low, null::float8 as high from tmp_dies where false group by wafer_slot`;
+
+  await client.query(
+    `insert into wafers (tenant_id, lot_id, slot, tested, pass, median_conductance_s, bin_counts, window_low_s, window_high_s, job_id, probed_at)
+     select $1, $2, t.wafer_slot, count(*), count(*) filter (where t.bin = 'PASS'),
+            percentile_cont(0.5) within group (order by t.conductance_s) filter (where t.${PARAMETRIC}),
+            (select jsonb_object_agg(bin, n) from (select bin, count(*) as n from tmp_dies b where b.wafer_slot = t.wafer_slot group by bin) c),
+            w.low, w.high, $3, $4
+       from tmp_dies t left join (${windowSql}) w on w.wafer_slot = t.wafer_slot
+      group by t.wafer_slot, w.low, w.high`,
+    dieWindow === "pat" ? [tenantId, lotId, jobId, probedAt, k] : [tenantId, lotId, jobId, probedAt],
+  );
+  await client.query(
+    `insert into dies (tenant_id, lot_id, wafer_slot, x, y, conductance_s, offset_a, r2, points_in_window, window_v, nonlinearity,
+                       nonlinearity_window_only, modes, bin, reason, temperature_k, site, points, sweep, out_of_window)
+     select $1, $2, t.wafer_slot, t.x, t.y, t.conductance_s, t.offset_a, t.r2, t.points_in_window, t.window_v, t.nonlinearity,
+            t.nonlinearity_window_only, t.modes, t.bin, t.reason, t.temperature_k, t.site, t.points, t.sweep,
+            coalesce(t.bin = 'PASS' and (t.conductance_s < w.window_low_s or t.conductance_s > w.window_high_s), false)
+       from tmp_dies t join wafers w on w.tenant_id = $1 and w.lot_id = $2 and w.slot = t.wafer_slot`,
+    [tenantId, lotId],
+  );
+  await client.query(
+    `update wafers w set out_of_window = d.n
+       from (select wafer_slot, count(*) filter (where out_of_window) as n from dies where tenant_id = $1 and lot_id = $2 group by wafer_slot) d
+      where w.tenant_id = $1 and w.lot_id = $2 and w.slot = d.wafer_slot and w.slot = any($3::int[])`,
+    [tenantId, lotId, slots],
+  );
+  return slots;
+}
+
+/** Recomputes the lot's totals over all its wafers (those of earlier files included). */
+export async function refreshLotTotals(client: pg.PoolClient, tenantId: string, lotId: string): Promise<void> {
+  await client.query(
+    `update lots l set tested = s.tested, pass = s.pass, out_of_window = s.oow, median_conductance_s = s.median, updated_at = now()
+       from (select count(*) as tested, count(*) filter (where bin = 'PASS') as pass, count(*) filter (where out_of_window) as oow,
+                    percentile_cont(0.5) within group (order by conductance_s) filter (where ${PARAMETRIC}) as median
+               from dies where tenant_id = $1 and lot_id = $2) s
+      where l.tenant_id = $1 and l.id = $2`,
+    [tenantId, lotId],
+  );
+}
