@@ -159,7 +159,11 @@ export async function up(db: Kysely<any>): Promise<void> {
   await sql`create policy customer_products on products as restrictive using (app_customer_id() is null or customer_id = app_customer_id())`.execute(db);
   await enableTenantRls(db, "raw_files");
   await sql`create policy staff_only on raw_files as restrictive using (app_customer_id() is null)`.execute(db);
-  await enableTenantRls(db, "ingest_jobs", " or app_setting('app.job_runner') = 'on'");
+  await sql`alter table ingest_jobs enable row level security`.execute(db);
+  await sql`alter table ingest_jobs force row level security`.execute(db);
+  await sql`create policy tenant_isolation on ingest_jobs
+    using (tenant_id = app_tenant_id() or app_setting('app.job_runner') = 'on')
+    with check (tenant_id = app_tenant_id() or app_setting('app.job_runner') = 'on')`.execute(db);
   await sql`create policy staff_only on ingest_jobs as restrictive using (app_customer_id() is null)`.execute(db);
   await enableTenantRls(db, "lots");
   await sql`create policy customer_lots on lots as restrictive using (app_customer_id() is null or (customer_id = app_customer_id() and status = 'released'))`.execute(db);
