@@ -25,7 +25,7 @@ function port(variable: string, fallback: number): number {
 }
 
 export function profile(name: "dev" | "test"): Profile {
-  const dataDir = path.join(projectRoot, ".data", name);
+  const dataDir = process.env.LOTWARDEN_DATA_DIR ? path.resolve(process.env.LOTWARDEN_DATA_DIR, name) : path.join(projectRoot, ".data", name);
   if (name === "dev") {
     return {
       name, dataDir, fastPostgres: false,
