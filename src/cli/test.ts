@@ -16,6 +16,9 @@ try {
   await stopServices(test); // whatever an interrupted run left behind
   if (!process.env.DATABASE_URL) removeCluster(test);
   rmSync(test.dataDir, { recursive: true, force: true });
+  log("type-checking the project (tsc --noEmit)…");
+  const typecheck = spawnSync(process.execPath, [path.join(projectRoot, "node_modules/typescript/bin/tsc"), "--noEmit", "-p", projectRoot], { cwd: projectRoot, stdio: "inherit" });
+  if (typecheck.status !== 0) throw new SetupError("the project does not type-check; see the errors above");
   const env = await startServices(test);
   await migrate(env);
   buildIfNeeded(env);

@@ -7,6 +7,9 @@ export const dynamic = "force-dynamic";
 
 const NAV: (NavItem & { permission: Permission })[] = [
   { href: "/", label: "Home", permission: "tenant.read" },
+  { href: "/lots", label: "Lots", permission: "data.read" },
+  { href: "/uploads", label: "Uploads", permission: "lots.upload" },
+  { href: "/products", label: "Products", permission: "data.read" },
   { href: "/settings/members", label: "Members", permission: "members.manage" },
   { href: "/settings/api-keys", label: "API keys", permission: "apikeys.manage" },
 ];

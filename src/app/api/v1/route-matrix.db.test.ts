@@ -38,6 +38,13 @@ const CASES: Case[] = [
   { method: "GET", route: "lots/[lot]", path: () => "/api/v1/lots/NO-SUCH-LOT", expect: { anonymous: 401, default: 404 } },
   { method: "GET", route: "lots/[lot]/dies", path: () => "/api/v1/lots/NO-SUCH-LOT/dies", expect: { anonymous: 401, customer: 403, otherCustomer: 403, default: 404 } },
   { method: "POST", route: "lots/ingest", path: () => "/api/v1/lots/ingest", rawBody: "not,a,probe,file\n", expect: { anonymous: 401, analyst: 403, customer: 403, otherCustomer: 403, default: 422 } },
+  {
+    method: "POST",
+    route: "device-models/evaluate",
+    path: () => "/api/v1/device-models/evaluate",
+    body: () => ({ model: { kind: "step", modes: 4, transmission: 0.95, edgeEv: -0.05 }, fermiLevelEv: 0, temperaturesK: [4, 77, 300] }),
+    expect: { anonymous: 401, customer: 403, otherCustomer: 403, default: 200 },
+  },
   { method: "POST", route: "session", path: () => "/api/v1/session", body: () => ({ email: `nobody-${unique()}@example.test`, password: "x" }), expect: { default: 401 } },
   { method: "DELETE", route: "session", path: () => "/api/v1/session", expect: { default: 204 } },
 ];

@@ -1,0 +1,132 @@
+"use client";
+
+import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { useCallback, useMemo, useRef } from "react";
+import useSWR from "swr";
+import type { ChartImageApi } from "@/components/charts/chart-export";
+import { WaferMap } from "@/components/charts/wafer-map";
+import { Button } from "@/components/ui/button";
+import { conductanceUnit, type MapDie } from "@/domain/wafer-map";
+import { assignZones, waferGeometry } from "@/domain/yield";
+import { fetcher, keys } from "@/lib/fetcher";
+import { type ConductanceUnit, formatConductance, formatPercent } from "@/lib/format";
+import type { DieRecord, WaferSummary } from "@/lib/schemas/lots";
+import { DieDrawer } from "./die-drawer";
+import { DieTable, type ZonedDie } from "./die-table";
+
+interface Props {
+  lot: string;
+  wafers: WaferSummary[];
+  geometry: { dieWidthMm: number; dieHeightMm: number; waferDiameterMm: number; edgeExclusionMm: number };
+  unit: ConductanceUnit;
+  /** The spec window spans the conductance colour scale, so colours mean the same on every wafer of the product. */
+  spec: { lowS: number | null; highS: number | null };
+}
+
+/** The lot page's hero: the wafer strip, the selected wafer's map, its die table and the die drawer; state in the URL. */
+export function LotExplorer({ lot, wafers, geometry, unit, spec }: Props) {
+  const router = useRouter();
+  const pathname = usePathname();
+  const params = useSearchParams();
+  const wafer = Number(params.get("wafer") ?? wafers[0]?.wafer ?? 1);
+  const colourBy = params.get("colour") === "bin" ? "bin" : "conductance";
+  const [sx, sy] = (params.get("die") ?? "").split(",").map(Number);
+  const selected = Number.isInteger(sx) && Number.isInteger(sy) && params.get("die") ? { wafer, x: sx!, y: sy! } : null;
+  const png = useRef<ChartImageApi | null>(null);
+
+  const setParams = useCallback(
+    (changes: Record<string, string | null>) => {
+      const next = new URLSearchParams(params.toString());
+      for (const [k, v] of Object.entries(changes)) {
+        if (v === null) next.delete(k);
+        else next.set(k, v);
+      }
+      router.replace(`${pathname}?${next.toString()}`, { scroll: false });
+    },
+    [params, pathname, router],
+  );
+
+  const { data, error, isLoading } = useSWR<{ dies: DieRecord[] }>(keys.dies(lot), fetcher);
+  const byWafer = useMemo(() => {
+    const map = new Map<number, ZonedDie[]>();
+    if (!data) return map;
+    const g = waferGeometry(geometry);
+    for (const w of wafers) {
+      const dies = data.dies.filter((d) => d.wafer === w.wafer);
+      map.set(w.wafer, dies.length ? assignZones(dies, g).map((d) => ({ ...d, zone: d.zone })) : []);
+    }
+    return map;
+  }, [data, wafers, geometry]);
+  const mapUnit = conductanceUnit(unit === "uS" ? "µS" : unit);
+  const current = byWafer.get(wafer) ?? [];
+  const summary = wafers.find((w) => w.wafer === wafer);
+
+  if (error) return <p role="alert" className="text-sm text-alert">The dies could not be loaded: {error.message}</p>;
+  return (
+    <div className="flex min-h-0 gap-0">
+      <div className="min-w-0 flex-1 space-y-4">
+        <nav aria-label="Wafers" className="flex gap-2 overflow-x-auto pb-2">
+          {wafers.map((w) => (
+            <button
+              key={w.wafer}
+              type="button"
+              onClick={() => setParams({ wafer: String(w.wafer), die: null })}
+              aria-pressed={w.wafer === wafer}
+              className={`w-[104px] shrink-0 rounded border p-1 text-left focus:outline-none focus-visible:ring-2 focus-visible:ring-accent ${w.wafer === wafer ? "border-accent bg-accent/5" : "border-slate-line bg-slate-panel hover:border-ink-muted"}`}
+            >
+              <div className="h-[92px]">
+                {byWafer.get(w.wafer)?.length ? (
+                  <WaferMap dies={byWafer.get(w.wafer)! as MapDie[]} geometry={geometry} colourBy="bin" unit={mapUnit} size="small" ariaLabel={`Wafer ${w.wafer} thumbnail`} />
+                ) : (
+                  <div className="h-full animate-pulse rounded bg-slate-wash" />
+                )}
+              </div>
+              <p className="mt-1 text-xs font-medium">W{w.wafer}</p>
+              <p className="tabular text-xs text-ink-soft">{formatPercent(w.yield)}{w.outOfWindow ? ` · ${w.outOfWindow}◎` : ""}</p>
+            </button>
+          ))}
+        </nav>
+        <section aria-label={`Wafer ${wafer}`} className="rounded-lg border border-slate-line bg-slate-panel p-4">
+          <div className="mb-2 flex flex-wrap items-center justify-between gap-3">
+            <div>
+              <h2 className="text-lg font-semibold">Wafer {wafer}</h2>
+              {summary ? (
+                <p className="tabular text-sm text-ink-soft">
+                  yield {formatPercent(summary.yield)} ({summary.pass}/{summary.tested}) · median G {formatConductance(summary.medianConductanceS, unit)} · {summary.outOfWindow} out of window
+                  {summary.windowLowS !== null ? ` (window ${formatConductance(summary.windowLowS, unit)} – ${formatConductance(summary.windowHighS, unit)})` : ""}
+                </p>
+              ) : null}
+            </div>
+            <div className="flex items-center gap-2" role="group" aria-label="Colour the map by">
+              <Button variant={colourBy === "conductance" ? "primary" : "secondary"} onClick={() => setParams({ colour: null })}>Conductance</Button>
+              <Button variant={colourBy === "bin" ? "primary" : "secondary"} onClick={() => setParams({ colour: "bin" })}>Bin</Button>
+              <Button variant="secondary" onClick={() => png.current?.downloadPng(`${lot}-W${wafer}.png`)}>PNG</Button>
+              <a className="rounded border border-slate-line px-3 py-1.5 text-sm hover:bg-slate-wash" href={keys.dies(lot, { wafer, format: "csv" })}>CSV</a>
+            </div>
+          </div>
+          <div className="h-[560px]">
+            {isLoading || !current.length ? (
+              <div className="flex h-full items-center justify-center text-sm text-ink-muted">{isLoading ? "Loading the map…" : "No dies on this wafer."}</div>
+            ) : (
+              <WaferMap
+                dies={current as MapDie[]}
+                geometry={geometry}
+                colourBy={colourBy}
+                unit={mapUnit}
+                selected={selected}
+                onSelect={(d) => setParams({ die: `${d.x},${d.y}` })}
+                ariaLabel={`Wafer map of wafer ${wafer}, coloured by ${colourBy}`}
+                onReady={(api) => (png.current = api)}
+                valueRange={spec.lowS !== null && spec.highS !== null ? { minS: spec.lowS, maxS: spec.highS } : null}
+              />
+            )}
+          </div>
+        </section>
+        <section aria-label="Die table" className="rounded-lg border border-slate-line bg-slate-panel p-4">
+          <DieTable dies={current} unit={unit} selected={selected} onSelect={(d) => setParams({ die: `${d.x},${d.y}` })} />
+        </section>
+      </div>
+      {selected ? <DieDrawer lot={lot} wafer={wafer} x={selected.x} y={selected.y} unit={unit} onClose={() => setParams({ die: null })} /> : null}
+    </div>
+  );
+}
