@@ -122,6 +122,7 @@ export function WaferMap(props: WaferMapProps) {
       data-die-count={model.dieCount}
       data-flagged-count={model.flaggedCount}
       data-inked-count={model.inkedCount}
+      data-selected={props.selected ? `${props.selected.x},${props.selected.y}` : ""}
       className={`relative w-full rounded focus:outline-none focus-visible:ring-2 focus-visible:ring-accent/50 ${props.className ?? ""}`}
       style={{ aspectRatio: large ? String(LARGE_ASPECT_RATIO) : "1" }}
     >
