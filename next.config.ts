@@ -6,7 +6,7 @@ const nextConfig: NextConfig = {
   typescript: { ignoreBuildErrors: true },
   reactStrictMode: true,
   // Server-side packages that must stay plain Node modules rather than be bundled.
-  serverExternalPackages: ["pg", "pg-copy-streams", "@node-rs/argon2", "nodemailer", "csv-parse"],
+  serverExternalPackages: ["pg", "pg-copy-streams", "@node-rs/argon2", "nodemailer", "csv-parse", "pdfkit"],
   experimental: {
     serverActions: { bodySizeLimit: "5mb" },
   },

@@ -37,6 +37,7 @@ const CASES: Case[] = [
   { method: "GET", route: "lots", path: () => "/api/v1/lots", expect: { anonymous: 401, default: 200 } },
   { method: "GET", route: "lots/[lot]", path: () => "/api/v1/lots/NO-SUCH-LOT", expect: { anonymous: 401, default: 404 } },
   { method: "GET", route: "lots/[lot]/dies", path: () => "/api/v1/lots/NO-SUCH-LOT/dies", expect: { anonymous: 401, customer: 403, otherCustomer: 403, default: 404 } },
+  { method: "GET", route: "lots/[lot]/report", path: () => "/api/v1/lots/NO-SUCH-LOT/report", expect: { anonymous: 401, default: 404 } },
   { method: "POST", route: "lots/ingest", path: () => "/api/v1/lots/ingest", rawBody: "not,a,probe,file\n", expect: { anonymous: 401, analyst: 403, customer: 403, otherCustomer: 403, default: 422 } },
   {
     method: "POST",
