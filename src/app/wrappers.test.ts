@@ -9,10 +9,10 @@ const ROUTE_WRAPPERS = /^export const (GET|POST|PUT|PATCH|DELETE) = (apiRoute|pu
 const ACTION_WRAPPERS = /^export const \w+Action = (appAction|publicAction)\(/;
 const ALLOWED_ROUTE_CONFIG = /^export const (dynamic|runtime|maxDuration) = /;
 
-function files(dir: string, name: string): string[] {
+function files(dir: string, name: RegExp): string[] {
   return readdirSync(dir).flatMap((entry) => {
     const full = path.join(dir, entry);
-    return statSync(full).isDirectory() ? files(full, name) : entry === name ? [full] : [];
+    return statSync(full).isDirectory() ? files(full, name) : name.test(entry) ? [full] : [];
   });
 }
 
@@ -22,7 +22,7 @@ function exportLines(file: string): string[] {
 
 describe("every entry point goes through a wrapper", () => {
   it("builds each route handler export with apiRoute, publicRoute or internalRoute", () => {
-    const routes = files(APP, "route.ts");
+    const routes = files(APP, /^route\.ts$/);
     expect(routes.length).toBeGreaterThan(2);
     for (const file of routes) {
       for (const line of exportLines(file)) {
@@ -31,8 +31,8 @@ describe("every entry point goes through a wrapper", () => {
     }
   });
 
-  it("builds each server action with appAction or publicAction", () => {
-    const actions = files(APP, "actions.ts");
+  it("builds each server action (actions.ts, *-actions.ts) with appAction or publicAction", () => {
+    const actions = files(APP, /(^|-)actions\.ts$/);
     expect(actions.length).toBeGreaterThan(2);
     for (const file of actions) {
       const text = readFileSync(file, "utf8");

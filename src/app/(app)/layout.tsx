@@ -12,7 +12,9 @@ const NAV: (NavItem & { permission: Permission })[] = [
   { href: "/products", label: "Products", permission: "data.read" },
   { href: "/docs/api", label: "API", permission: "tenant.read" },
   { href: "/settings/members", label: "Members", permission: "members.manage" },
+  { href: "/settings/customers", label: "Customers", permission: "customers.manage" },
   { href: "/settings/api-keys", label: "API keys", permission: "apikeys.manage" },
+  { href: "/settings/tenant", label: "Tenant settings", permission: "tenant.settings" },
 ];
 
 export default async function AppLayout({ children }: { children: ReactNode }) {

@@ -252,6 +252,16 @@ export interface DiesTable {
   sweep: Buffer;
 }
 
+export interface SavedViewsTable {
+  tenant_id: string;
+  id: Generated<string>;
+  user_id: string;
+  name: string;
+  path: string;
+  query: string;
+  created_at: Timestamp;
+}
+
 export interface Database {
   tenants: TenantsTable;
   users: UsersTable;
@@ -270,4 +280,5 @@ export interface Database {
   lots: LotsTable;
   wafers: WafersTable;
   dies: DiesTable;
+  saved_views: SavedViewsTable;
 }

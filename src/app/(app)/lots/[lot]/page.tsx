@@ -9,7 +9,10 @@ import { getLotDetail } from "@/server/db/queries/lots";
 import { findProduct } from "@/server/db/queries/products";
 import { withScope } from "@/server/db/scope";
 import { AppError } from "@/server/http/errors";
+import { listViews } from "@/server/db/queries/views";
 import { LotExplorer } from "./lot-explorer";
+import { SavedViews } from "./saved-views";
+import { REFERENCE_CHUCK_K, TemperatureNote } from "./temperature-note";
 
 export async function generateMetadata({ params }: { params: Promise<{ lot: string }> }): Promise<Metadata> {
   return { title: `Lot ${decodeURIComponent((await params).lot)}` };
@@ -21,14 +24,14 @@ export default async function LotPage({ params }: { params: Promise<{ lot: strin
   const loaded = await withScope(context.scope, async (tx) => {
     try {
       const lot = await getLotDetail(tx, lotNumber);
-      return { lot, product: await findProduct(tx, lot.product) };
+      return { lot, product: await findProduct(tx, lot.product), views: await listViews(tx, `/lots/${encodeURIComponent(lotNumber)}`) };
     } catch (error) {
       if (error instanceof AppError && error.code === "not_found") return null;
       throw error;
     }
   });
   if (!loaded?.product) notFound();
-  const { lot, product } = loaded;
+  const { lot, product, views } = loaded;
   const facts: [string, string][] = [
     ["Status", lot.status],
     ["Yield", `${formatPercent(lot.yield)} (${lot.pass}/${lot.tested})`],
@@ -42,6 +45,10 @@ export default async function LotPage({ params }: { params: Promise<{ lot: strin
     <>
       <PageHeader eyebrow={`Lot · ${lot.customer ?? "internal"}`} title={lot.lot}>
         <Link className="text-sm text-accent underline" href={`/products/${encodeURIComponent(lot.product)}`}>{lot.product}</Link>
+        <Link className="text-sm text-accent underline" href={`/lots/${encodeURIComponent(lot.lot)}/report`}>Lot report</Link>
+        <Suspense fallback={null}>
+          <SavedViews views={views} />
+        </Suspense>
       </PageHeader>
       <dl className="mb-5 grid grid-cols-2 gap-3 md:grid-cols-4 xl:grid-cols-7">
         {facts.map(([label, value]) => (
@@ -51,6 +58,7 @@ export default async function LotPage({ params }: { params: Promise<{ lot: strin
           </div>
         ))}
       </dl>
+      <TemperatureNote lotK={lot.chuckTemperatureK} referenceK={REFERENCE_CHUCK_K} model={product.deviceModel} unit={product.displayUnit} />
       {lot.wafers.length === 0 ? (
         <p className="text-sm text-ink-soft">No wafers have been probed for this lot yet.</p>
       ) : (
