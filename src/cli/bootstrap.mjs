@@ -71,7 +71,8 @@ if (command !== "stop") {
 const child = spawn(process.execPath, ["--import", "tsx", path.join(root, "src/cli", commands[command]), ...process.argv.slice(3)], {
   stdio: "inherit",
   cwd: root,
-  env: { ...process.env, NEXT_TELEMETRY_DISABLED: "1", LOTWARDEN_COMMAND: command },
+  // The AWS SDK is pinned to a release that supports Node.js 20, so its notice about later releases is only noise.
+  env: { ...process.env, NEXT_TELEMETRY_DISABLED: "1", AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true", LOTWARDEN_COMMAND: command },
 });
 for (const signal of ["SIGINT", "SIGTERM"]) process.on(signal, () => child.kill(signal));
 child.on("exit", (code, signal) => process.exit(code ?? (signal ? 1 : 0)));

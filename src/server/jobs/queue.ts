@@ -35,12 +35,14 @@ export async function asJobRunner<T>(fn: (client: pg.PoolClient) => Promise<T>):
   }
 }
 
-export async function claimNextJob(): Promise<ClaimedJob | null> {
+/** Claims the oldest due job, optionally only of one tenant (a worker pinned to a tenant). */
+export async function claimNextJob(options: { tenantId?: string } = {}): Promise<ClaimedJob | null> {
   return asJobRunner(async (client) => {
     const { rows } = await client.query(
       `with next as (
          select tenant_id, id from ingest_jobs
-         where (status = 'queued' and run_after <= now()) or (status = 'running' and lease_until < now())
+         where ((status = 'queued' and run_after <= now()) or (status = 'running' and lease_until < now()))
+           and ($2::uuid is null or tenant_id = $2::uuid)
          order by created_at
          limit 1
          for update skip locked)
@@ -50,7 +52,7 @@ export async function claimNextJob(): Promise<ClaimedJob | null> {
          from next
         where j.tenant_id = next.tenant_id and j.id = next.id
        returning j.tenant_id, j.id, j.raw_file_id, j.lot_number, j.product_code, j.chuck_temperature_k, j.attempts`,
-      [LEASE_SECONDS],
+      [LEASE_SECONDS, options.tenantId ?? null],
     );
     const r = rows[0];
     if (!r) return null;
