@@ -72,4 +72,34 @@ describe("invite → e-mail → accept → sign in → sign out, in a real brows
     expect(response?.status()).toBe(404);
     await page.getByRole("heading", { name: "Nothing here" }).waitFor();
   });
+
+  it("resets a forgotten password through the e-mailed link, after which only the new password works", async () => {
+    const page = await (await browser.newContext()).newPage();
+    await page.goto(`${appUrl}/sign-in`);
+    await page.getByRole("link", { name: "Forgot your password?" }).click();
+    await page.getByLabel("E-mail").fill(tenant.users.engineer!.email);
+    await page.getByRole("button", { name: "Send reset link" }).click();
+    await page.getByText("a reset link is on its way").waitFor();
+    const message = await waitForMessage(tenant.users.engineer!.email, "Reset your Lotwarden password");
+    await page.goto(firstLink(message, "/reset/"));
+    await page.getByLabel("New password").fill("a-brand-new-password");
+    await page.getByRole("button", { name: "Set password and sign in" }).click();
+    await page.waitForURL(`${appUrl}/`);
+    const post = (password: string) =>
+      fetch(`${appUrl}/api/v1/session`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ email: tenant.users.engineer!.email, password }) });
+    expect((await post(TEST_PASSWORD)).status).toBe(401);
+    expect((await post("a-brand-new-password")).status).toBe(200);
+  });
+
+  it("lets a member of two tenants switch between them, seeing each tenant's name", async () => {
+    const second = await createTestTenant(pool, "e2e-identity-2");
+    await pool.query("insert into memberships (tenant_id, user_id, role) values ($1, $2, 'analyst')", [second.id, tenant.users.analyst!.id]);
+    const page = await (await browser.newContext()).newPage();
+    await signIn(page, tenant.users.analyst!.email, TEST_PASSWORD);
+    const switcher = page.getByLabel("Switch tenant");
+    await switcher.waitFor();
+    await switcher.selectOption({ label: second.name });
+    await expect.poll(async () => (await switcher.inputValue()) === second.id).toBe(true);
+    await page.getByText(second.name).first().waitFor();
+  });
 });

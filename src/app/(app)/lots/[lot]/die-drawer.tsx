@@ -27,7 +27,7 @@ export function DieDrawer({ lot, wafer, x, y, unit, onClose }: { lot: string; wa
   const maxBias = points.reduce((m, p) => Math.max(m, Math.abs(p.biasV)), 0);
   const leaves = die ? maxBias > die.windowV * (1 + 1e-9) : false;
   return (
-    <aside aria-label={`Die ${x}, ${y} of wafer ${wafer}`} className="w-[420px] shrink-0 border-l border-slate-line bg-slate-panel p-5">
+    <aside aria-label={`Die ${x}, ${y} of wafer ${wafer}`} className="fixed right-0 top-0 z-30 h-screen w-[420px] max-w-full shrink-0 overflow-y-auto border-l border-slate-line bg-slate-panel p-5 shadow-xl 2xl:static 2xl:h-auto 2xl:shadow-none">
       <div className="flex items-start justify-between">
         <div>
           <p className="text-xs font-semibold uppercase tracking-[0.16em] text-ink-muted">Wafer {wafer}</p>
