@@ -100,6 +100,6 @@ describe("invite → e-mail → accept → sign in → sign out, in a real brows
     await switcher.waitFor();
     await switcher.selectOption({ label: second.name });
     await expect.poll(async () => (await switcher.inputValue()) === second.id).toBe(true);
-    await page.getByText(second.name).first().waitFor();
+    await page.locator("header").getByText(second.name).waitFor();
   });
 });
