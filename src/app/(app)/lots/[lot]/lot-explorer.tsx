@@ -11,6 +11,7 @@ import { assignZones, waferGeometry } from "@/domain/yield";
 import { fetcher, keys } from "@/lib/fetcher";
 import { type ConductanceUnit, formatConductance, formatPercent } from "@/lib/format";
 import type { DieRecord, WaferSummary } from "@/lib/schemas/lots";
+import { AnalysisTabs } from "./analysis-tabs";
 import { DieDrawer } from "./die-drawer";
 import { DieTable, type ZonedDie } from "./die-table";
 
@@ -104,9 +105,10 @@ export function LotExplorer({ lot, wafers, geometry, unit, spec }: Props) {
               <a className="rounded border border-slate-line px-3 py-1.5 text-sm hover:bg-slate-wash" href={keys.dies(lot, { wafer, format: "csv" })}>CSV</a>
             </div>
           </div>
-          <div className="h-[560px]">
+          {/* The map keeps its own aspect ratio (1.25 : 1); capping the width caps its height at 560 px. */}
+          <div className="mx-auto w-full max-w-[700px]">
             {isLoading || !current.length ? (
-              <div className="flex h-full items-center justify-center text-sm text-ink-muted">{isLoading ? "Loading the map…" : "No dies on this wafer."}</div>
+              <div className="flex h-[560px] items-center justify-center text-sm text-ink-muted">{isLoading ? "Loading the map…" : "No dies on this wafer."}</div>
             ) : (
               <WaferMap
                 dies={current as MapDie[]}
@@ -125,6 +127,7 @@ export function LotExplorer({ lot, wafers, geometry, unit, spec }: Props) {
         <section aria-label="Die table" className="rounded-lg border border-slate-line bg-slate-panel p-4">
           <DieTable dies={current} unit={unit} selected={selected} onSelect={(d) => setParams({ die: `${d.x},${d.y}` })} />
         </section>
+        <AnalysisTabs lot={lot} wafers={wafers} dies={data?.dies ?? []} geometry={geometry} unit={unit} />
       </div>
       {selected ? <DieDrawer lot={lot} wafer={wafer} x={selected.x} y={selected.y} unit={unit} onClose={() => setParams({ die: null })} /> : null}
     </div>
