@@ -1,5 +1,5 @@
 // Shared browser set-up for the e2e suite: Debian's Chromium through playwright-core (no browser download).
-import { chromium, type Browser, type BrowserContext } from "playwright-core";
+import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 
 export const appUrl = process.env.LOTWARDEN_TEST_APP_URL ?? "http://127.0.0.1:3100";
 
@@ -29,4 +29,13 @@ export async function localOnlyContext(browser: Browser): Promise<{ context: Bro
     if (!["127.0.0.1", "localhost"].includes(url.hostname) && url.protocol !== "data:" && url.protocol !== "blob:") external.push(request.url());
   });
   return { context, external };
+}
+
+/** Signs in through the sign-in form, as a person would, and waits for the home page. */
+export async function signIn(page: Page, email: string, password: string): Promise<void> {
+  await page.goto(`${appUrl}/sign-in`);
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL(`${appUrl}/`);
 }

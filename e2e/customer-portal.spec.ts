@@ -1,9 +1,9 @@
-import type { Browser, Page } from "playwright-core";
+import type { Browser } from "playwright-core";
 import { getDocument } from "pdfjs-dist/legacy/build/pdf.mjs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { api, createSampleProduct, fixture, ingestAndWait } from "../src/test/ingest-helpers";
 import { createTestTenant, ownerPool, TEST_PASSWORD, type TestTenant } from "../src/test/tenants";
-import { appUrl, launchBrowser } from "./browser";
+import { appUrl, launchBrowser, signIn } from "./browser";
 
 let browser: Browser;
 let tenant: TestTenant;
@@ -30,19 +30,12 @@ afterAll(async () => {
   await pool.end();
 });
 
-async function signIn(page: Page, email: string) {
-  await page.goto(`${appUrl}/sign-in`);
-  await page.getByLabel("E-mail").fill(email);
-  await page.getByLabel("Password").fill(TEST_PASSWORD);
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL(`${appUrl}/`);
-}
 
 describe("the customer portal in a real browser", () => {
   it("shows a customer exactly its released lots, opens the report and downloads its PDF", async () => {
     const context = await browser.newContext({ acceptDownloads: true, viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
-    await signIn(page, tenant.users.customer!.email);
+    await signIn(page, tenant.users.customer!.email, TEST_PASSWORD);
     await page.getByRole("heading", { name: "Your released lots" }).waitFor();
     const rows = page.getByRole("row");
     await expect.poll(() => rows.count()).toBe(2); // header + one released lot
@@ -67,7 +60,7 @@ describe("the customer portal in a real browser", () => {
 
   it("answers another customer's lot, an unreleased lot and a staff page with the 404 page (threat: URL guessing)", async () => {
     const page = await (await browser.newContext()).newPage();
-    await signIn(page, tenant.users.customer!.email);
+    await signIn(page, tenant.users.customer!.email, TEST_PASSWORD);
     for (const path of ["/lots/OT2611-0001/report", "/lots/TW2611-0148/report", "/lots/TW2611-0147", "/uploads"]) {
       const response = await page.goto(`${appUrl}${path}`);
       expect(response?.status(), path).toBe(404);

@@ -1,7 +1,7 @@
-import type { Browser, Page } from "playwright-core";
+import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createTestTenant, ownerPool, TEST_PASSWORD, type TestTenant } from "../src/test/tenants";
-import { appUrl, launchBrowser } from "./browser";
+import { appUrl, launchBrowser, signIn } from "./browser";
 import { firstLink, waitForMessage } from "./mailbox";
 
 let browser: Browser;
@@ -17,13 +17,6 @@ afterAll(async () => {
   await pool.end();
 });
 
-async function signIn(page: Page, email: string, password: string) {
-  await page.goto(`${appUrl}/sign-in`);
-  await page.getByLabel("E-mail").fill(email);
-  await page.getByLabel("Password").fill(password);
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL(`${appUrl}/`);
-}
 
 describe("invite → e-mail → accept → sign in → sign out, in a real browser", () => {
   it("lets an admin invite an analyst who joins through the e-mailed link", async () => {

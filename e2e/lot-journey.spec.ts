@@ -1,8 +1,8 @@
-import type { Browser, Page } from "playwright-core";
+import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { api, createSampleProduct, fixturePath } from "../src/test/ingest-helpers";
 import { createTestTenant, ownerPool, TEST_PASSWORD, type TestTenant } from "../src/test/tenants";
-import { appUrl, launchBrowser } from "./browser";
+import { appUrl, launchBrowser, signIn } from "./browser";
 
 let browser: Browser;
 let tenant: TestTenant;
@@ -19,18 +19,11 @@ afterAll(async () => {
   await pool.end();
 });
 
-async function signIn(page: Page, email: string) {
-  await page.goto(`${appUrl}/sign-in`);
-  await page.getByLabel("E-mail").fill(email);
-  await page.getByLabel("Password").fill(TEST_PASSWORD);
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL(`${appUrl}/`);
-}
 
 describe("upload a lot, watch it finish, explore its wafer map (browser)", () => {
   it("uploads a probe file by the drop zone and shows the job done with its lot", async () => {
     const page = await (await browser.newContext({ viewport: { width: 1440, height: 900 } })).newPage();
-    await signIn(page, tenant.users.engineer!.email);
+    await signIn(page, tenant.users.engineer!.email, TEST_PASSWORD);
     await page.getByRole("link", { name: "Uploads" }).click();
     await page.waitForURL(`${appUrl}/uploads`);
     await page.locator('input[type="file"]').setInputFiles(fixturePath("good-small.csv"));
@@ -43,7 +36,7 @@ describe("upload a lot, watch it finish, explore its wafer map (browser)", () =>
     expect(flagged).toBeGreaterThan(0);
 
     const page = await (await browser.newContext({ viewport: { width: 1440, height: 900 } })).newPage();
-    await signIn(page, tenant.users.analyst!.email);
+    await signIn(page, tenant.users.analyst!.email, TEST_PASSWORD);
     await page.goto(`${appUrl}/lots/TW2611-0147?wafer=1`);
     const map = page.getByRole("application", { name: /Wafer map of wafer 1/ });
     await map.waitFor();
@@ -66,7 +59,7 @@ describe("upload a lot, watch it finish, explore its wafer map (browser)", () =>
   it("answers another tenant's lot with the 404 page (threat: reading a competitor's lot by URL)", async () => {
     const other = await createTestTenant(pool, "e2e-lot-other");
     const page = await (await browser.newContext()).newPage();
-    await signIn(page, other.users.admin!.email);
+    await signIn(page, other.users.admin!.email, TEST_PASSWORD);
     const response = await page.goto(`${appUrl}/lots/TW2611-0147`);
     expect(response?.status()).toBe(404);
   });

@@ -3,6 +3,7 @@
 import { createHash, randomBytes, randomUUID } from "node:crypto";
 import { hash } from "@node-rs/argon2";
 import pg from "pg";
+import { asTenant } from "../cli/owner-db";
 
 export const TEST_PASSWORD = "correct-horse-battery-staple";
 let passwordHash: Promise<string> | null = null;
@@ -22,23 +23,6 @@ export interface TestTenant {
   customers: { id: string; name: string }[];
   users: Record<string, { id: string; email: string }>;
   keys: Record<string, string>;
-}
-
-/** Runs statements as the owner with the tenant set, so FORCEd row-level security is satisfied too. */
-async function asTenant<T>(pool: pg.Pool, tenantId: string, fn: (client: pg.PoolClient) => Promise<T>): Promise<T> {
-  const client = await pool.connect();
-  try {
-    await client.query("begin");
-    await client.query("select set_config('app.tenant_id', $1, true)", [tenantId]);
-    const result = await fn(client);
-    await client.query("commit");
-    return result;
-  } catch (error) {
-    await client.query("rollback");
-    throw error;
-  } finally {
-    client.release();
-  }
 }
 
 function apiKey(): { key: string; prefix: string; secretHash: string } {

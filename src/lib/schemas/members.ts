@@ -36,3 +36,24 @@ export interface InvitationRow {
   state: "pending" | "accepted" | "expired" | "withdrawn";
 }
 
+
+export interface MemberView {
+  userId: string;
+  email: string;
+  name: string;
+  role: Role;
+  customerId: string | null;
+  customerName: string | null;
+  joinedAt: string;
+}
+
+export interface ApiKeyView {
+  id: string;
+  name: string;
+  role: Role;
+  prefix: string;
+  createdBy: string | null;
+  createdAt: string;
+  lastUsedAt: string | null;
+  revokedAt: string | null;
+}

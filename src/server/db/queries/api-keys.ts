@@ -1,24 +1,14 @@
 import "server-only";
 import type { Kysely } from "kysely";
 import type { Role } from "@/lib/permissions";
+import type { ApiKeyView } from "@/lib/schemas/members";
 import { newApiKey } from "../../auth/api-key";
 import { AppError } from "../../http/errors";
 import type { Scope } from "../scope";
 import type { Database } from "../schema";
 import { recordAudit } from "./audit";
 
-export interface ApiKeyRow {
-  id: string;
-  name: string;
-  role: Role;
-  prefix: string;
-  createdBy: string | null;
-  createdAt: string;
-  lastUsedAt: string | null;
-  revokedAt: string | null;
-}
-
-export async function listApiKeys(tx: Kysely<Database>): Promise<ApiKeyRow[]> {
+export async function listApiKeys(tx: Kysely<Database>): Promise<ApiKeyView[]> {
   const rows = await tx
     .selectFrom("api_keys as k")
     .leftJoin("users as u", "u.id", "k.created_by")

@@ -3,6 +3,7 @@ import { type Kysely, sql } from "kysely";
 import type { LotDetail, LotFilters, LotListItem, LotStatus, WaferSummary } from "@/lib/schemas/lots";
 import { AppError } from "../../http/errors";
 import type { Database } from "../schema";
+import { openExcursionsForLot } from "./excursions";
 
 const ratio = (pass: number, tested: number) => (tested > 0 ? pass / tested : null);
 
@@ -98,6 +99,6 @@ export async function getLotDetail(tx: Kysely<Database>, lotNumber: string): Pro
     bins,
     statusChangedAt: row.status_changed_at.toISOString(),
     releasedAt: row.released_at?.toISOString() ?? null,
-    openExcursions: [],
+    openExcursions: (await openExcursionsForLot(tx, row.id)).map((e) => ({ id: e.id, title: e.title, openedAt: e.openedAt })),
   };
 }

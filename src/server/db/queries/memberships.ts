@@ -1,5 +1,6 @@
 import "server-only";
 import type { Kysely } from "kysely";
+import type { MemberView } from "@/lib/schemas/members";
 import type { Database, Role } from "../schema";
 
 export interface MembershipSummary {
@@ -22,17 +23,7 @@ export async function listUserMemberships(tx: Kysely<Database>, userId: string):
   return rows.map((r) => ({ tenantId: r.tenant_id, tenantName: r.name, tenantSlug: r.slug, role: r.role, customerId: r.customer_id }));
 }
 
-export interface MemberRow {
-  userId: string;
-  email: string;
-  name: string;
-  role: Role;
-  customerId: string | null;
-  customerName: string | null;
-  joinedAt: string;
-}
-
-export async function listMembers(tx: Kysely<Database>): Promise<MemberRow[]> {
+export async function listMembers(tx: Kysely<Database>): Promise<MemberView[]> {
   const rows = await tx
     .selectFrom("memberships as m")
     .innerJoin("users as u", "u.id", "m.user_id")

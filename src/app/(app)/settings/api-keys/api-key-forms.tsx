@@ -5,19 +5,9 @@ import { Button } from "@/components/ui/button";
 import { FormMessage, SelectField, TextField } from "@/components/ui/field";
 import { EmptyState } from "@/components/ui/page-header";
 import { formatDateTime } from "@/lib/format";
-import { ROLE_LABELS, ROLES, type Role } from "@/lib/permissions";
+import { ROLE_LABELS, ROLES } from "@/lib/permissions";
+import type { ApiKeyView } from "@/lib/schemas/members";
 import { createApiKeyAction, revokeApiKeyAction } from "./actions";
-
-export interface ApiKeyView {
-  id: string;
-  name: string;
-  role: Role;
-  prefix: string;
-  createdBy: string | null;
-  createdAt: string;
-  lastUsedAt: string | null;
-  revokedAt: string | null;
-}
 
 export function CreateKeyForm({ customers }: { customers: { id: string; name: string }[] }) {
   const [role, setRole] = useState<string>("engineer");

@@ -6,17 +6,8 @@ import { DataGrid } from "@/components/grid/data-grid";
 import { Button } from "@/components/ui/button";
 import { formatDate } from "@/lib/format";
 import { ROLE_LABELS, ROLES, type Role } from "@/lib/permissions";
+import type { MemberView } from "@/lib/schemas/members";
 import { changeRoleAction, removeMemberAction } from "./actions";
-
-export interface MemberView {
-  userId: string;
-  email: string;
-  name: string;
-  role: Role;
-  customerId: string | null;
-  customerName: string | null;
-  joinedAt: string;
-}
 
 interface Props {
   members: MemberView[];
