@@ -10,6 +10,7 @@ const NAV: (NavItem & { permission: Permission })[] = [
   { href: "/lots", label: "Lots", permission: "data.read" },
   { href: "/uploads", label: "Uploads", permission: "lots.upload" },
   { href: "/products", label: "Products", permission: "data.read" },
+  { href: "/excursions", label: "Excursions", permission: "data.read" },
   { href: "/docs/api", label: "API", permission: "tenant.read" },
   { href: "/settings/members", label: "Members", permission: "members.manage" },
   { href: "/settings/customers", label: "Customers", permission: "customers.manage" },

@@ -23,6 +23,7 @@ export {
   type FrozenXbarSLimits,
   limitSetFromBaseline,
 } from "./limit-set";
+export { type NormalityHint, NORMALITY_ALPHA, NORMALITY_MIN_VALUES, normalityHint } from "./normality";
 export { AEC_Q001_IQR_DIVISOR, MAD_NORMAL_CONSISTENCY, iqrSigma, madSigma, median, quantile } from "./robust";
 export {
   type RuleCheck,

@@ -262,6 +262,93 @@ export interface SavedViewsTable {
   created_at: Timestamp;
 }
 
+export type ExcursionStatus = "open" | "acknowledged" | "resolved";
+export type ExcursionTrigger = "rule" | "yield_floor" | "edge_ring" | "manual";
+export type DispositionAction = "hold" | "release" | "scrap";
+
+export interface LimitSetsTable {
+  tenant_id: string;
+  id: Generated<string>;
+  product_id: string;
+  version: number;
+  baseline: Json;
+  limits: Json;
+  lot_count: number;
+  wafer_count: number;
+  die_count: number;
+  die_window_low_s: number | null;
+  die_window_high_s: number | null;
+  die_window_center_s: number | null;
+  die_window_sigma_s: number | null;
+  die_window_k: number;
+  rules: ProductRules;
+  note: string | null;
+  frozen_by: string | null;
+  frozen_by_label: string;
+  frozen_at: Timestamp;
+  in_force_from: Timestamp;
+}
+
+export interface ExcursionsTable {
+  tenant_id: string;
+  id: Generated<string>;
+  number: number;
+  product_id: string;
+  trigger: ExcursionTrigger;
+  title: string;
+  status: Generated<ExcursionStatus>;
+  limit_set_id: string | null;
+  evidence: Json;
+  owner_user_id: string | null;
+  opened_by_label: string;
+  opened_at: Timestamp;
+  acknowledged_at: NullableTimestamp;
+  resolved_at: NullableTimestamp;
+  root_cause: string | null;
+  resolution_note: string | null;
+  updated_at: Timestamp;
+}
+
+export interface ExcursionLotsTable {
+  tenant_id: string;
+  excursion_id: string;
+  lot_id: string;
+  wafers: ColumnType<number[], number[] | undefined, number[]>;
+  findings: Json;
+  added_at: Timestamp;
+}
+
+export interface ExcursionCommentsTable {
+  tenant_id: string;
+  id: Generated<string>;
+  excursion_id: string;
+  author_user_id: string | null;
+  author_label: string;
+  body: string;
+  created_at: Timestamp;
+}
+
+export interface LotDispositionsTable {
+  tenant_id: string;
+  id: Generated<string>;
+  lot_id: string;
+  action: DispositionAction;
+  from_status: LotStatus;
+  to_status: LotStatus;
+  reason: string;
+  override_reason: string | null;
+  actor_user_id: string | null;
+  actor_label: string;
+  at: Timestamp;
+}
+
+export interface ProductWatchersTable {
+  tenant_id: string;
+  product_id: string;
+  user_id: string;
+  added_at: Timestamp;
+}
+
 export interface Database {
   tenants: TenantsTable;
   users: UsersTable;
@@ -281,4 +368,10 @@ export interface Database {
   wafers: WafersTable;
   dies: DiesTable;
   saved_views: SavedViewsTable;
+  limit_sets: LimitSetsTable;
+  excursions: ExcursionsTable;
+  excursion_lots: ExcursionLotsTable;
+  excursion_comments: ExcursionCommentsTable;
+  lot_dispositions: LotDispositionsTable;
+  product_watchers: ProductWatchersTable;
 }

@@ -11,6 +11,8 @@ import { getProduct } from "../db/queries/products";
 import { systemScope, withScope } from "../db/scope";
 import { AppError } from "../http/errors";
 import { openRawFile } from "../storage/raw-files";
+import { judgeAfterIngest } from "../spc/judge-after-ingest";
+import { staticWindowInForce } from "../spc/static-window";
 import { CREATE_TMP_DIES, dieCopyLine, TMP_DIE_COLUMNS } from "./die-copy";
 import { refreshLotTotals, replaceWafers } from "./lot-aggregates";
 import { type ClaimedJob, failJob, heartbeat, retryJob } from "./queue";
@@ -145,6 +147,7 @@ export async function runIngestJob(job: ClaimedJob): Promise<"done" | "failed" |
   const ctx: Context = { job, settings, chuckTemperatureK: job.chuckTemperatureK ?? 300 };
   const client = await pool.connect();
   let warnings: unknown[] = [];
+  let judgedLotId: string | null = null;
   try {
     await client.query("begin");
     await client.query("select set_config('app.tenant_id', $1, true)", [job.tenantId]);
@@ -153,7 +156,8 @@ export async function runIngestJob(job: ClaimedJob): Promise<"done" | "failed" |
     warnings = streamed.summary.warnings;
     await mergeRepeatedDies(client, ctx, streamed.repeated);
     const lot = await upsertLot(client, ctx, product.id, customerId, product.code, streamed.header.metadata);
-    const wafers = await replaceWafers(client, job.tenantId, lot.id, job.id, lot.probedAt, product.dieWindow, product.dieWindowK);
+    const staticWindow = product.dieWindow === "static" ? await staticWindowInForce(client, job.tenantId, product.id, lot.probedAt) : null;
+    const wafers = await replaceWafers(client, job.tenantId, lot.id, job.id, lot.probedAt, product.dieWindow, product.dieWindowK, staticWindow);
     await refreshLotTotals(client, job.tenantId, lot.id);
     const bins = await client.query<{ bin: string; n: string }>("select bin, count(*) as n from tmp_dies group by bin");
     const report: IngestReport = {
@@ -170,6 +174,7 @@ export async function runIngestJob(job: ClaimedJob): Promise<"done" | "failed" |
     );
     if (done.rowCount !== 1) throw new Error("the job's lease was taken over by another worker");
     await client.query("commit");
+    judgedLotId = lot.id;
     return "done";
   } catch (error) {
     await client.query("rollback").catch(() => undefined);
@@ -186,5 +191,7 @@ export async function runIngestJob(job: ClaimedJob): Promise<"done" | "failed" |
     return "retry";
   } finally {
     client.release();
+    // Judged in its own transaction after the commit, so a judging failure never loses the ingest.
+    if (judgedLotId) await judgeAfterIngest(job.tenantId, judgedLotId, job.id);
   }
 }

@@ -6,20 +6,26 @@ import type pg from "pg";
 const PARAMETRIC = "bin not in ('NODATA', 'OPEN', 'SHORT')";
 
 /** Replaces the file's wafers of the lot: old wafers and their dies go, the new ones arrive whole. */
-export async function replaceWafers(client: pg.PoolClient, tenantId: string, lotId: string, jobId: string, probedAt: Date, dieWindow: "static" | "pat", k: number): Promise<number[]> {
+export async function replaceWafers(
+  client: pg.PoolClient, tenantId: string, lotId: string, jobId: string, probedAt: Date, dieWindow: "static" | "pat", k: number,
+  staticWindow: { lowS: number; highS: number } | null = null,
+): Promise<number[]> {
   const { rows } = await client.query<{ wafer_slot: number }>("select distinct wafer_slot from tmp_dies order by 1");
   const slots = rows.map((r) => r.wafer_slot);
   await client.query("delete from wafers where tenant_id = $1 and lot_id = $2 and slot = any($3::int[])", [tenantId, lotId, slots]);
 
   // Dynamic Part Average Testing per wafer (AEC-Q001): median ± k·(IQR/1.35) over the wafer's PASS dies.
-  // A static window needs a frozen baseline (limit set); without one no die is flagged.
+  // A static window comes from the limit set in force at probe time (src/server/spc/static-window.ts); without one
+  // no die is flagged.
   const windowSql =
     dieWindow === "pat"
       ? `select wafer_slot,
                 percentile_cont(0.5) within group (order by conductance_s) - $5 * (percentile_cont(0.75) within group (order by conductance_s) - percentile_cont(0.25) within group (order by conductance_s)) / 1.35 as low,
                 percentile_cont(0.5) within group (order by conductance_s) + $5 * (percentile_cont(0.75) within group (order by conductance_s) - percentile_cont(0.25) within group (order by conductance_s)) / 1.35 as high
            from tmp_dies where bin = 'PASS' group by wafer_slot`
-      : `select wafer_slot, null::float8 as low, null::float8 as high from tmp_dies where false group by wafer_slot`;
+      : staticWindow
+        ? `select wafer_slot, $5::float8 as low, $6::float8 as high from tmp_dies group by wafer_slot`
+        : `select wafer_slot, null::float8 as low, null::float8 as high from tmp_dies where false group by wafer_slot`;
 
   await client.query(
     `insert into wafers (tenant_id, lot_id, slot, tested, pass, median_conductance_s, bin_counts, window_low_s, window_high_s, job_id, probed_at)
@@ -29,7 +35,7 @@ export async function replaceWafers(client: pg.PoolClient, tenantId: string, lot
             w.low, w.high, $3, $4
        from tmp_dies t left join (${windowSql}) w on w.wafer_slot = t.wafer_slot
       group by t.wafer_slot, w.low, w.high`,
-    dieWindow === "pat" ? [tenantId, lotId, jobId, probedAt, k] : [tenantId, lotId, jobId, probedAt],
+    dieWindow === "pat" ? [tenantId, lotId, jobId, probedAt, k] : staticWindow ? [tenantId, lotId, jobId, probedAt, staticWindow.lowS, staticWindow.highS] : [tenantId, lotId, jobId, probedAt],
   );
   await client.query(
     `insert into dies (tenant_id, lot_id, wafer_slot, x, y, conductance_s, offset_a, r2, points_in_window, window_v, nonlinearity,

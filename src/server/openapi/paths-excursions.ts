@@ -3,25 +3,21 @@ import type { OpenAPIRegistry } from "@asteasolutions/zod-to-openapi";
 import { access, AUTH_ERRORS, errors, isoDateTime, json } from "./components";
 import { z } from "./zod-openapi";
 
-// The excursion list of §6/§9; its handler is being added alongside this document.
+// The excursion list of §6/§9, exactly as GET /api/v1/excursions returns each item (ExcursionListItem).
 const EXCURSION_STATUSES = ["open", "acknowledged", "resolved"] as const;
 
 const excursionSchema = z
   .object({
     id: z.string().uuid(),
-    title: z.string(),
+    number: z.number().int().positive().describe("Per-tenant number, as shown on the pages (/excursions/{number} works too)"),
     status: z.enum(EXCURSION_STATUSES).describe("open → acknowledged → resolved"),
-    trigger: z.enum(["rule", "yield-floor", "edge-zone", "manual"]).describe("What opened it: a control-chart rule, a lot under the yield floor, a weak edge zone, or a person"),
-    rule: z.string().nullable().describe("The rule that fired, e.g. WE1 or N2; null for other triggers"),
     product: z.string().describe("Product code"),
+    trigger: z.enum(["rule", "yield_floor", "edge_ring", "manual"]).describe("What opened it: a control-chart rule, a lot under the yield floor, an edge ring, or a person"),
+    title: z.string(),
     lots: z.array(z.string()).describe("Lot numbers involved"),
-    wafers: z.array(z.object({ lot: z.string(), wafer: z.number().int().min(1).max(25) })).describe("Wafers involved, when the signal is wafer-level"),
     owner: z.string().nullable().describe("Who owns it"),
     openedAt: isoDateTime,
-    acknowledgedAt: isoDateTime.nullable(),
-    resolvedAt: isoDateTime.nullable(),
-    rootCause: z.string().nullable().describe("Required to resolve"),
-    note: z.string().nullable().describe("Resolution note; required to resolve"),
+    updatedAt: isoDateTime,
   })
   .openapi("Excursion");
 

@@ -1,7 +1,8 @@
 import "server-only";
 import type { OpenAPIRegistry } from "@asteasolutions/zod-to-openapi";
 import { access, AUTH_ERRORS, errors, json, JSON_BODY_ERRORS, lotParam } from "./components";
-import { dispositionBody, dispositionResultSchema, lotReportSchema, reportQuery } from "./schemas-dispositions";
+import { dispositionBody, dispositionResultSchema, inkBody, lotReportSchema, reportQuery } from "./schemas-dispositions";
+import { z } from "./zod-openapi";
 import { dieCsvSchema, dieFiltersQuery, dieListSchema, lotDetailSchema, lotFiltersQuery, lotListSchema } from "./schemas-lots";
 
 export function registerLotPaths(registry: OpenAPIRegistry): void {
@@ -55,6 +56,21 @@ export function registerLotPaths(registry: OpenAPIRegistry): void {
     request: { params: lotParam, body: { required: true, content: json(dispositionBody, { action: "release", reason: "Yield and die windows within the agreement" }) } },
     responses: {
       200: { description: "The disposition was applied", content: json(dispositionResultSchema) },
+      ...errors(...AUTH_ERRORS, "not_found", "conflict", ...JSON_BODY_ERRORS),
+    },
+  });
+
+  registry.registerPath({
+    method: "post",
+    path: "/api/v1/lots/{lot}/ink",
+    operationId: "inkDies",
+    tags: ["Lots"],
+    summary: "Ink or un-ink dies of one wafer",
+    description: "Inked dies count as fails in the shipped yield; refused (409) on a released or scrapped lot. Engineers only; audited.",
+    ...access("dies.ink"),
+    request: { params: lotParam, body: { required: true, content: json(inkBody) } },
+    responses: {
+      200: { description: "How many dies changed and how many of the wafer are now inked", content: json(z.object({ wafer: z.number().int(), changed: z.number().int(), inked: z.number().int() })) },
       ...errors(...AUTH_ERRORS, "not_found", "conflict", ...JSON_BODY_ERRORS),
     },
   });

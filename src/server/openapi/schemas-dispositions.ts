@@ -10,8 +10,17 @@ export const dispositionBody = z
   .object({
     action: z.enum(["hold", "release", "scrap"]).describe("hold → on hold, release → released (e-mails the customer's users), scrap → scrapped"),
     reason: z.string().trim().min(1).max(2000).describe("Why; required and kept in the audit trail"),
+    overrideReason: z.string().trim().min(1).max(2000).optional().describe("Required to release a lot that still has an open excursion: why it may ship anyway"),
   })
   .openapi("Disposition");
+
+export const inkBody = z
+  .object({
+    wafer: z.number().int().min(1).max(25).describe("Wafer slot"),
+    dies: z.array(z.tuple([z.number().int(), z.number().int()])).min(1).max(100_000).describe("Die grid indices [x, y]"),
+    inked: z.boolean().describe("true inks the dies (they count as fails in the shipped yield); false removes the ink"),
+  })
+  .openapi("Ink");
 
 export const dispositionResultSchema = z
   .object({
@@ -22,6 +31,9 @@ export const dispositionResultSchema = z
     reason: z.string(),
     by: z.string().describe("Who set it"),
     at: isoDateTime,
+    overrideReason: z.string().nullable().optional(),
+    releasedAt: isoDateTime.nullable().optional(),
+    notified: z.number().int().optional().describe("How many customer users the release e-mail was queued for"),
   })
   .openapi("DispositionResult");
 

@@ -46,6 +46,11 @@ const CASES: Case[] = [
     body: () => ({ model: { kind: "step", modes: 4, transmission: 0.95, edgeEv: -0.05 }, fermiLevelEv: 0, temperaturesK: [4, 77, 300] }),
     expect: { anonymous: 401, customer: 403, otherCustomer: 403, default: 200 },
   },
+  { method: "GET", route: "products/[code]/limits", path: () => "/api/v1/products/NO-SUCH/limits", expect: { anonymous: 401, customer: 403, otherCustomer: 403, default: 404 } },
+  { method: "POST", route: "products/[code]/limits", path: () => "/api/v1/products/NO-SUCH/limits", body: () => ({ lots: ["NO-SUCH-LOT"] }), expect: { anonymous: 401, analyst: 403, customer: 403, otherCustomer: 403, default: 404 } },
+  { method: "POST", route: "lots/[lot]/ink", path: () => "/api/v1/lots/NO-SUCH-LOT/ink", body: () => ({ wafer: 1, dies: [[0, 0]], inked: true }), expect: { anonymous: 401, analyst: 403, customer: 403, otherCustomer: 403, default: 404 } },
+  { method: "POST", route: "lots/[lot]/disposition", path: () => "/api/v1/lots/NO-SUCH-LOT/disposition", body: () => ({ action: "hold", reason: "matrix check" }), expect: { anonymous: 401, analyst: 403, customer: 403, otherCustomer: 403, default: 404 } },
+  { method: "GET", route: "excursions", path: () => "/api/v1/excursions", expect: { anonymous: 401, customer: 403, otherCustomer: 403, default: 200 } },
   { method: "POST", route: "session", path: () => "/api/v1/session", body: () => ({ email: `nobody-${unique()}@example.test`, password: "x" }), expect: { default: 401 } },
   { method: "DELETE", route: "session", path: () => "/api/v1/session", expect: { default: 204 } },
 ];

@@ -5,6 +5,7 @@ import type { LimitBaseline, LimitSetView } from "@/lib/schemas/limits";
 import { computeLimits, type LimitProduct } from "../../spc/limit-computation";
 import type { Scope } from "../scope";
 import type { Database, LimitSetsTable } from "../schema";
+import { AppError } from "../../http/errors";
 import { recordAudit } from "./audit";
 
 export type LimitSetRow = Selectable<LimitSetsTable>;
@@ -21,6 +22,7 @@ export function toLimitSetView(r: LimitSetRow): LimitSetView {
   return {
     version: r.version,
     frozenAt: r.frozen_at.toISOString(),
+    inForceFrom: r.in_force_from.toISOString(),
     frozenBy: r.frozen_by_label,
     baseline: { kind: baseline.kind, from: baseline.from, to: baseline.to },
     lots: baseline.lots,
@@ -43,31 +45,48 @@ export async function listLimitSets(tx: Kysely<Database>, productId: string): Pr
   return rows.map(toLimitSetView);
 }
 
-/** The version in force at an instant: the latest one frozen at or before it; null before the first freeze. */
+/** The version in force at an instant: the latest one in force from it or earlier; null before the first. */
 export async function limitSetInForce(tx: Kysely<Database>, productId: string, at: Date): Promise<LimitSetRow | null> {
   const row = await tx
     .selectFrom("limit_sets")
     .selectAll()
     .where("product_id", "=", productId)
-    .where("frozen_at", "<=", at)
-    .orderBy("frozen_at", "desc")
+    .where("in_force_from", "<=", at)
+    .orderBy("in_force_from", "desc")
     .orderBy("version", "desc")
     .limit(1)
     .executeTakeFirst();
   return row ?? null;
 }
 
-/** When the version after this one was frozen (the end of its period), or null while it is the latest. */
+/** When the version after this one came into force (the end of this one's period), or null while it is the latest. */
 export async function supersededAt(tx: Kysely<Database>, limitSet: LimitSetRow): Promise<Date | null> {
   const next = await tx
     .selectFrom("limit_sets")
-    .select("frozen_at")
+    .select("in_force_from")
     .where("product_id", "=", limitSet.product_id)
     .where("version", ">", limitSet.version)
     .orderBy("version")
     .limit(1)
     .executeTakeFirst();
-  return next?.frozen_at ?? null;
+  return next?.in_force_from ?? null;
+}
+
+/**
+ * A version normally comes into force when it is frozen. It may be put in force earlier, to judge lots already
+ * probed since the baseline — but never before the newest baseline lot was probed, and never in the future.
+ */
+async function resolveInForceFrom(tx: Kysely<Database>, lotIds: string[], requested: string | undefined): Promise<Date> {
+  const now = new Date();
+  if (!requested) return now;
+  const at = new Date(requested);
+  const newest = await tx.selectFrom("lots").select((eb) => eb.fn.max("probed_at").as("t")).where("id", "in", lotIds).executeTakeFirst();
+  const newestProbe = newest?.t ? new Date(newest.t as unknown as string) : null;
+  if (at > now) throw new AppError("unprocessable", "inForceFrom: a limit set cannot come into force in the future", [{ path: "inForceFrom", message: "in the future" }]);
+  if (newestProbe && at < newestProbe) {
+    throw new AppError("unprocessable", `inForceFrom: the baseline's newest lot was probed ${newestProbe.toISOString()}; the limits cannot be in force before it`, [{ path: "inForceFrom", message: "before the baseline" }]);
+  }
+  return at;
 }
 
 /** Computes limits from the baseline and freezes them as the product's next version, audited. */
@@ -77,6 +96,7 @@ export async function freezeLimitSet(tx: Kysely<Database>, scope: Scope, product
   const computed = await computeLimits(tx, product, baseline);
   const last = await tx.selectFrom("limit_sets").select((eb) => eb.fn.max("version").as("v")).where("product_id", "=", product.id).executeTakeFirst();
   const version = Number(last?.v ?? 0) + 1;
+  const inForceFrom = await resolveInForceFrom(tx, computed.lotIds, baseline.inForceFrom);
   const stored: StoredBaseline = "lots" in baseline
     ? { kind: "lots", lots: computed.lots, from: null, to: null }
     : { kind: "dates", lots: computed.lots, from: new Date(baseline.from).toISOString(), to: new Date(baseline.to).toISOString() };
@@ -100,6 +120,7 @@ export async function freezeLimitSet(tx: Kysely<Database>, scope: Scope, product
       note: baseline.note ?? null,
       frozen_by: scope.userId,
       frozen_by_label: scope.actorLabel,
+      in_force_from: inForceFrom,
     })
     .returningAll()
     .executeTakeFirstOrThrow();

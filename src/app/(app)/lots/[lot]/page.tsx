@@ -2,7 +2,12 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { Suspense } from "react";
-import { PageHeader } from "@/components/ui/page-header";
+import { PageHeader, Panel } from "@/components/ui/page-header";
+import { can } from "@/lib/permissions";
+import { listDispositions } from "@/server/db/queries/dispositions";
+import { getLotJudgement } from "@/server/spc/lot-judgement";
+import { DispositionPanel } from "./disposition-panel";
+import { JudgementPanel } from "./judgement-panel";
 import { formatConductance, formatDateTime, formatPercent, formatTemperature } from "@/lib/format";
 import { requireContext } from "@/server/auth/context";
 import { getLotDetail } from "@/server/db/queries/lots";
@@ -24,14 +29,20 @@ export default async function LotPage({ params }: { params: Promise<{ lot: strin
   const loaded = await withScope(context.scope, async (tx) => {
     try {
       const lot = await getLotDetail(tx, lotNumber);
-      return { lot, product: await findProduct(tx, lot.product), views: await listViews(tx, `/lots/${encodeURIComponent(lotNumber)}`) };
+      return {
+        lot,
+        product: await findProduct(tx, lot.product),
+        views: await listViews(tx, `/lots/${encodeURIComponent(lotNumber)}`),
+        judgement: await getLotJudgement(tx, lot.id),
+        history: await listDispositions(tx, lot.id),
+      };
     } catch (error) {
       if (error instanceof AppError && error.code === "not_found") return null;
       throw error;
     }
   });
   if (!loaded?.product) notFound();
-  const { lot, product, views } = loaded;
+  const { lot, product, views, judgement, history } = loaded;
   const facts: [string, string][] = [
     ["Status", lot.status],
     ["Yield", `${formatPercent(lot.yield)} (${lot.pass}/${lot.tested})`],
@@ -58,6 +69,12 @@ export default async function LotPage({ params }: { params: Promise<{ lot: strin
           </div>
         ))}
       </dl>
+      <div className="mb-5 grid gap-4 xl:grid-cols-[1fr_420px]">
+        <JudgementPanel judgement={judgement} openExcursions={lot.openExcursions} />
+        <Panel title="Disposition">
+          <DispositionPanel lot={lot.lot} status={lot.status} releasedAt={lot.releasedAt} openExcursions={lot.openExcursions} history={history} canDispose={can(context.role, "lots.disposition")} />
+        </Panel>
+      </div>
       <TemperatureNote lotK={lot.chuckTemperatureK} referenceK={REFERENCE_CHUCK_K} model={product.deviceModel} unit={product.displayUnit} />
       {lot.wafers.length === 0 ? (
         <p className="text-sm text-ink-soft">No wafers have been probed for this lot yet.</p>

@@ -9,6 +9,7 @@ import { findProduct } from "@/server/db/queries/products";
 import { withScope } from "@/server/db/scope";
 import { ProductForm } from "../product-form";
 import { DeviceModelPanel } from "./device-model-panel";
+import { SpcSection } from "./spc-section";
 
 export async function generateMetadata({ params }: { params: Promise<{ code: string }> }): Promise<Metadata> {
   return { title: decodeURIComponent((await params).code) };
@@ -27,6 +28,9 @@ export default async function ProductPage({ params }: { params: Promise<{ code: 
   return (
     <>
       <PageHeader eyebrow={`Product · ${product.customerName ?? "internal"}`} title={`${product.code} — ${product.name}`} />
+      <div className="mb-6">
+        <SpcSection productCode={product.code} />
+      </div>
       <Panel title="Device model and thermal window" className="mb-6">
         <DeviceModelPanel code={product.code} model={product.deviceModel} windowFactor={product.windowFactor} unit={product.displayUnit} editable={can(context.role, "devicemodels.edit")} recentLots={recentLots} />
       </Panel>

@@ -1,0 +1,87 @@
+import "server-only";
+import type { Kysely } from "kysely";
+import type { ControlChartInput } from "@/components/charts/control-chart-options";
+import { type BaselineLimitValues, individualsChart } from "@/domain/spc";
+import type { Database } from "../db/schema";
+import { limitSetInForce, type LimitSetRow, supersededAt } from "../db/queries/limit-sets";
+import { judgeSeries, type MetricJudgement, type RuleHit } from "./chart-judgement";
+import { type CapabilityResult, dieCapability } from "./die-capability";
+import { loadSeries } from "./series";
+
+const CHART_LOTS = 40;
+const MICRO = 1e6; // charts print G in µS
+const label = (hits: RuleHit[]) => hits.map((h) => `${h.rule}: ${h.description}`);
+
+export interface ProductCharts {
+  version: number;
+  lotCount: number;
+  medianG: ControlChartInput;
+  movingRange: ControlChartInput;
+  lotMeanG: ControlChartInput | null;
+  yieldChart: ControlChartInput;
+  notes: string[];
+  capability: CapabilityResult;
+}
+
+function individualsInput(m: MetricJudgement, scale: number, unitLabel: string, yieldFloor?: number | null): ControlChartInput {
+  const ind = m.individuals;
+  return {
+    points: ind.points.map((p) => ({ label: `${p.lotNumber} · W${p.wafer}`, value: p.value * scale, violations: label(p.hits) })),
+    center: ind.center * scale, ucl: ind.ucl * scale, lcl: ind.lcl * scale, sigma: ind.sigma * scale, unitLabel,
+    yieldFloor: yieldFloor === undefined || yieldFloor === null ? undefined : yieldFloor * scale,
+  };
+}
+
+/**
+ * The product page's charts (§6) under the version in force now: individuals of wafer median G with its moving
+ * range, the lot X̄ chart (limits for the baseline's usual lot size), wafer yield against the yield floor, and
+ * die-level capability over the charted lots. Null before the first freeze.
+ */
+export async function getProductCharts(tx: Kysely<Database>, product: ChartProduct): Promise<ProductCharts | null> {
+  const limitSet = await limitSetInForce(tx, product.id, new Date());
+  return limitSet ? chartsUnder(tx, product, limitSet) : null;
+}
+
+type ChartProduct = { id: string; yieldFloor: number | null; specLowS: number | null; specHighS: number | null };
+
+/** The same charts under a given version, optionally ending at one lot (an excursion's evidence). */
+export async function chartsUnder(tx: Kysely<Database>, product: ChartProduct, limitSet: LimitSetRow, upTo?: { probedAt: Date; lotNumber: string }): Promise<ProductCharts> {
+  const series = await loadSeries(tx, { productId: product.id, from: limitSet.frozen_at, until: await supersededAt(tx, limitSet), upTo, latest: CHART_LOTS });
+  const limits = limitSet.limits as BaselineLimitValues;
+  const judged = judgeSeries(series, limits, limitSet.rules);
+  const g = judged.waferMedianConductanceS;
+  const notes = [
+    g.individuals.skipped && `Wafer median G: ${g.individuals.skipped}.`,
+    judged.waferYieldFraction.individuals.skipped && `Wafer yield: ${judged.waferYieldFraction.individuals.skipped}.`,
+  ].filter((n): n is string => Boolean(n));
+  if (series.length === CHART_LOTS) notes.push(`Showing the latest ${CHART_LOTS} lots; runs are counted from the first of them.`);
+  const values = g.individuals.points.map((p) => p.value);
+  const ind = limits.waferMedianConductanceS.individuals;
+  const movingRange: ControlChartInput = {
+    points: values.length >= 2 ? individualsChart(values).movingRanges.map((mr, i) => ({ label: g.individuals.points[i + 1]!.lotNumber, value: mr * MICRO, violations: mr > ind.mrUcl ? ["Moving range beyond its upper limit."] : [] })) : [],
+    center: ind.mrBar * MICRO, ucl: ind.mrUcl * MICRO, lcl: ind.mrLcl * MICRO, sigma: 0, unitLabel: "µS",
+  };
+  const frozenLot = limits.waferMedianConductanceS.lotXbarS;
+  const lotMeanG: ControlChartInput | null = g.lotMeans && frozenLot
+    ? {
+        points: g.lotMeans.points.map((p) => ({ label: p.lotNumber, value: p.mean * MICRO, violations: label(p.hits) })),
+        center: frozenLot.center * MICRO, ucl: frozenLot.ucl * MICRO, lcl: frozenLot.lcl * MICRO, sigma: frozenLot.sigma * MICRO, unitLabel: "µS",
+      }
+    : null;
+  return {
+    version: limitSet.version,
+    lotCount: series.length,
+    medianG: individualsInput(g, MICRO, "µS"),
+    movingRange,
+    lotMeanG,
+    yieldChart: individualsInput(judged.waferYieldFraction, 100, "%", product.yieldFloor),
+    notes,
+    capability: await dieCapabilityForSeries(tx, product, series.map((s) => s.lotNumber)),
+  };
+}
+
+async function dieCapabilityForSeries(tx: Kysely<Database>, product: { id: string; specLowS: number | null; specHighS: number | null }, lotNumbers: string[]): Promise<CapabilityResult> {
+  if (lotNumbers.length === 0) return { capability: null, reason: "no lots probed under this version yet" };
+  const ids = await tx.selectFrom("lots").select("id").where("product_id", "=", product.id).where("lot_number", "in", lotNumbers).execute();
+  return dieCapability(tx, ids.map((r) => r.id), product);
+}
