@@ -6,26 +6,11 @@ import { createHash, randomBytes } from "node:crypto";
 import { hash } from "@node-rs/argon2";
 import pg from "pg";
 import { createRng, demoScenario, generateLotCsv, type DemoScenario, type LotPlan } from "../../fixtures/demo";
+import { asTenant } from "./owner-db";
 import { log } from "./processes";
 
 export const DEMO_PASSWORD = "warden-demo-2026";
 const SEED_KEY_NAME = "Demo seed (npm start)";
-
-async function inTenant<T>(pool: pg.Pool, tenantId: string, fn: (c: pg.PoolClient) => Promise<T>): Promise<T> {
-  const client = await pool.connect();
-  try {
-    await client.query("begin");
-    await client.query("select set_config('app.tenant_id', $1, true)", [tenantId]);
-    const result = await fn(client);
-    await client.query("commit");
-    return result;
-  } catch (error) {
-    await client.query("rollback");
-    throw error;
-  } finally {
-    client.release();
-  }
-}
 
 /** Tenants, customers, people and memberships: the platform's own set-up, done once as the schema owner. */
 async function ensurePeople(pool: pg.Pool, scenario: DemoScenario): Promise<Map<string, { id: string; customers: Map<string, string>; key: string }>> {
@@ -37,7 +22,7 @@ async function ensurePeople(pool: pg.Pool, scenario: DemoScenario): Promise<Map<
     const prefix = randomBytes(5).toString("hex");
     const secret = randomBytes(32).toString("base64url");
     const key = `lw_${prefix}_${secret}`;
-    const customers = await inTenant(pool, id, async (c) => {
+    const customers = await asTenant(pool, id, async (c) => {
       await c.query("insert into tenants (id, slug, name) values ($1, $2, $3) on conflict (slug) do nothing", [id, t.slug, t.name]);
       for (const customer of t.customers) await c.query("insert into customers (tenant_id, name) values ($1, $2) on conflict (tenant_id, name) do nothing", [id, customer.name]);
       const rows = await c.query("select id, name from customers where tenant_id = $1", [id]);
@@ -55,7 +40,7 @@ async function ensurePeople(pool: pg.Pool, scenario: DemoScenario): Promise<Map<
     for (const m of user.memberships) {
       const tenant = tenants.get(m.tenantSlug)!;
       const customerId = m.customerName ? tenant.customers.get(m.customerName)! : null;
-      await inTenant(pool, tenant.id, (c) =>
+      await asTenant(pool, tenant.id, (c) =>
         c.query("insert into memberships (tenant_id, user_id, role, customer_id) values ($1, $2, $3, $4) on conflict (tenant_id, user_id) do nothing", [tenant.id, userId, m.role, customerId]),
       );
     }
@@ -100,6 +85,26 @@ async function ingest(ctx: SeedContext, scenario: DemoScenario, lot: LotPlan): P
   return status === 200 && json.job.status !== "queued" && json.job.status !== "running" ? json.job : waitForJob(ctx, json.job.id);
 }
 
+async function freezeLimits(ctx: SeedContext, productCode: string, lots: string[], inForceFrom: string): Promise<void> {
+  const path = `/api/v1/products/${encodeURIComponent(productCode)}/limits`;
+  const existing = await call(ctx, "GET", path);
+  if (existing.status !== 200) throw new Error(`limits of ${productCode}: ${existing.status} ${JSON.stringify(existing.json)}`);
+  if ((existing.json?.versions ?? []).length > 0) return;
+  const frozen = await call(ctx, "POST", path, { lots, inForceFrom, note: "Demo scenario baseline" });
+  if (frozen.status !== 201 && frozen.status !== 200) throw new Error(`freezing limits of ${productCode}: ${frozen.status} ${JSON.stringify(frozen.json)}`);
+  log(`demo: limits of ${productCode} frozen from ${lots.length} baseline lots (version ${frozen.json?.version})`);
+}
+
+async function dispose(ctx: SeedContext, lot: LotPlan): Promise<void> {
+  const plan = lot.disposition!;
+  const target = { hold: "on hold", release: "released", scrap: "scrapped" }[plan.action];
+  const current = await call(ctx, "GET", `/api/v1/lots/${encodeURIComponent(lot.lotNumber)}`);
+  if (current.json?.status === target) return;
+  const body = { action: plan.action, reason: plan.reason, ...(plan.action === "release" ? { overrideReason: `Demo scenario: ${plan.reason}` } : {}) };
+  const result = await call(ctx, "POST", `/api/v1/lots/${encodeURIComponent(lot.lotNumber)}/disposition`, body);
+  if (result.status >= 300) log(`demo: ${plan.action} of ${lot.lotNumber} refused: ${JSON.stringify(result.json?.error ?? result.json)}`);
+}
+
 /** Loads the demo scenario through the app at appUrl. */
 export async function seedDemo(env: Record<string, string>): Promise<void> {
   const started = Date.now();
@@ -119,11 +124,15 @@ export async function seedDemo(env: Record<string, string>): Promise<void> {
     }
     let done = 0;
     for (const lot of scenario.lots) {
-      const job = await ingest(contexts.get(lot.tenantSlug)!, scenario, lot);
+      const ctx = contexts.get(lot.tenantSlug)!;
+      const job = await ingest(ctx, scenario, lot);
       if (job.status !== "done") log(`demo lot ${lot.lotNumber} did not ingest: ${JSON.stringify(job.error)}`);
       done++;
       if (done % 10 === 0) log(`demo: ${done}/${scenario.lots.length} lots ingested`);
+      // Limits are frozen right after their baseline, so every later lot is judged on arrival, as in a fab.
+      for (const plan of scenario.limitBaselines.filter((b) => b.lotNumbers.at(-1) === lot.lotNumber)) await freezeLimits(ctx, plan.productCode, plan.lotNumbers, plan.frozenAt);
     }
+    for (const lot of scenario.lots.filter((l) => l.disposition)) await dispose(contexts.get(lot.tenantSlug)!, lot);
     const bad = await ingest(contexts.get(scenario.badFile.lot.tenantSlug)!, scenario, scenario.badFile.lot);
     log(`demo: the deliberately bad file was refused as planned: ${bad.error?.message ?? bad.status}`);
     log(`demo data ready in ${((Date.now() - started) / 1000).toFixed(0)} s (${scenario.totals.lots} lots, ${scenario.totals.dies} dies; all invented)`);
