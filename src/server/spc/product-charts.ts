@@ -46,7 +46,7 @@ type ChartProduct = { id: string; yieldFloor: number | null; specLowS: number | 
 
 /** The same charts under a given version, optionally ending at one lot (an excursion's evidence). */
 export async function chartsUnder(tx: Kysely<Database>, product: ChartProduct, limitSet: LimitSetRow, upTo?: { probedAt: Date; lotNumber: string }): Promise<ProductCharts> {
-  const series = await loadSeries(tx, { productId: product.id, from: limitSet.frozen_at, until: await supersededAt(tx, limitSet), upTo, latest: CHART_LOTS });
+  const series = await loadSeries(tx, { productId: product.id, from: limitSet.in_force_from, until: await supersededAt(tx, limitSet), upTo, latest: CHART_LOTS });
   const limits = limitSet.limits as BaselineLimitValues;
   const judged = judgeSeries(series, limits, limitSet.rules);
   const g = judged.waferMedianConductanceS;
