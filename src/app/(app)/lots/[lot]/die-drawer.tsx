@@ -1,11 +1,14 @@
 "use client";
 
-import useSWR from "swr";
+import { useRouter } from "next/navigation";
+import { useState, useTransition } from "react";
+import useSWR, { useSWRConfig } from "swr";
 import { IvSweepChart } from "@/components/charts/iv-sweep-chart";
 import { fitCubic } from "@/domain/transport";
 import { fetcher, keys } from "@/lib/fetcher";
 import { type ConductanceUnit, formatConductance } from "@/lib/format";
 import type { DieRecord } from "@/lib/schemas/lots";
+import { inkDiesAction } from "./actions";
 
 function Row({ label, value }: { label: string; value: string }) {
   return (
@@ -19,8 +22,19 @@ function Row({ label, value }: { label: string; value: string }) {
 const fmt = (v: number | null, digits = 4) => (v === null || !Number.isFinite(v) ? "—" : Number(v.toPrecision(digits)).toString());
 
 /** The right-hand drawer for one die: its sweep with the fits and the thermal window, and every §5 value with units. */
-export function DieDrawer({ lot, wafer, x, y, unit, onClose }: { lot: string; wafer: number; x: number; y: number; unit: ConductanceUnit; onClose: () => void }) {
+export function DieDrawer({ lot, wafer, x, y, unit, canInk, onClose }: { lot: string; wafer: number; x: number; y: number; unit: ConductanceUnit; canInk: boolean; onClose: () => void }) {
   const { data, error } = useSWR<{ dies: DieRecord[] }>(keys.dies(lot, { wafer, x, y, include: "sweep" }), fetcher);
+  const { mutate } = useSWRConfig();
+  const router = useRouter();
+  const [inkMessage, setInkMessage] = useState<string | null>(null);
+  const [inking, startInk] = useTransition();
+  const toggleInk = (inked: boolean) =>
+    startInk(async () => {
+      const result = await inkDiesAction({ lot, wafer, dies: [[x, y]], inked });
+      setInkMessage(result.ok ? (inked ? "Inked: this die now counts as a fail in the shipped yield." : "Ink removed.") : result.message);
+      await mutate((key) => typeof key === "string" && key.startsWith(`/api/v1/lots/${encodeURIComponent(lot)}/dies`));
+      router.refresh();
+    });
   const die = data?.dies[0];
   const points = die?.sweep ? die.sweep.biasV.map((biasV, i) => ({ biasV, currentA: die.sweep!.currentA[i]!, compliance: die.sweep!.compliance[i]! })) : [];
   const cubic = points.length ? fitCubic(points) : null;
@@ -65,6 +79,14 @@ export function DieDrawer({ lot, wafer, x, y, unit, onClose }: { lot: string; wa
             <Row label="Out of window" value={die.outOfWindow ? "yes" : "no"} />
             <Row label="Inked" value={die.inked ? "yes" : "no"} />
           </dl>
+          {canInk ? (
+            <div className="mt-4">
+              <button type="button" disabled={inking} onClick={() => toggleInk(!die.inked)} className="rounded border border-slate-line px-3 py-1.5 text-sm hover:bg-slate-wash disabled:opacity-50">
+                {die.inked ? "Remove ink" : "Ink this die"}
+              </button>
+              {inkMessage ? <p role="status" className="mt-2 text-xs text-ink-soft">{inkMessage}</p> : null}
+            </div>
+          ) : null}
         </>
       ) : null}
     </aside>

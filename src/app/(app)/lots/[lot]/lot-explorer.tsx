@@ -22,10 +22,11 @@ interface Props {
   unit: ConductanceUnit;
   /** The spec window spans the conductance colour scale, so colours mean the same on every wafer of the product. */
   spec: { lowS: number | null; highS: number | null };
+  canInk: boolean;
 }
 
 /** The lot page's hero: the wafer strip, the selected wafer's map, its die table and the die drawer; state in the URL. */
-export function LotExplorer({ lot, wafers, geometry, unit, spec }: Props) {
+export function LotExplorer({ lot, wafers, geometry, unit, spec, canInk }: Props) {
   const router = useRouter();
   const pathname = usePathname();
   const params = useSearchParams();
@@ -129,7 +130,7 @@ export function LotExplorer({ lot, wafers, geometry, unit, spec }: Props) {
         </section>
         <AnalysisTabs lot={lot} wafers={wafers} dies={data?.dies ?? []} geometry={geometry} unit={unit} />
       </div>
-      {selected ? <DieDrawer lot={lot} wafer={wafer} x={selected.x} y={selected.y} unit={unit} onClose={() => setParams({ die: null })} /> : null}
+      {selected ? <DieDrawer lot={lot} wafer={wafer} x={selected.x} y={selected.y} unit={unit} canInk={canInk} onClose={() => setParams({ die: null })} /> : null}
     </div>
   );
 }

@@ -80,7 +80,7 @@ export default async function LotPage({ params }: { params: Promise<{ lot: strin
         <p className="text-sm text-ink-soft">No wafers have been probed for this lot yet.</p>
       ) : (
         <Suspense fallback={<p className="text-sm text-ink-muted">Loading the wafers…</p>}>
-          <LotExplorer lot={lot.lot} wafers={lot.wafers} geometry={{ dieWidthMm: product.dieWidthMm, dieHeightMm: product.dieHeightMm, waferDiameterMm: product.waferDiameterMm, edgeExclusionMm: product.edgeExclusionMm }} unit={product.displayUnit} spec={{ lowS: product.specLowS, highS: product.specHighS }} />
+          <LotExplorer lot={lot.lot} wafers={lot.wafers} geometry={{ dieWidthMm: product.dieWidthMm, dieHeightMm: product.dieHeightMm, waferDiameterMm: product.waferDiameterMm, edgeExclusionMm: product.edgeExclusionMm }} unit={product.displayUnit} spec={{ lowS: product.specLowS, highS: product.specHighS }} canInk={can(context.role, "dies.ink") && lot.status !== "released" && lot.status !== "scrapped"} />
         </Suspense>
       )}
     </>
