@@ -4,6 +4,7 @@ import { EmptyState, PageHeader, Panel } from "@/components/ui/page-header";
 import { formatConductance, formatDateTime, formatPercent } from "@/lib/format";
 import type { AuthContext } from "@/server/auth/context";
 import { getAttention, getProductTrends } from "@/server/db/queries/home";
+import { listExcursions } from "@/server/db/queries/excursions";
 import { listLots } from "@/server/db/queries/lots";
 import { withScope } from "@/server/db/scope";
 
@@ -11,17 +12,31 @@ const lotLink = (lot: string) => <Link className="font-medium text-accent underl
 
 /** Engineers' and analysts' front door: what needs attention first, then recent lots and product trends. */
 export async function StaffHome({ context }: { context: AuthContext }) {
-  const { attention, recent, trends } = await withScope(context.scope, async (tx) => ({
+  const { attention, recent, trends, excursions } = await withScope(context.scope, async (tx) => ({
     attention: await getAttention(tx),
     recent: await listLots(tx, { page: 1, pageSize: 12, sort: "probedAt", order: "desc" }),
     trends: await getProductTrends(tx),
+    excursions: (await listExcursions(tx, {})).filter((x) => x.status !== "resolved"),
   }));
-  const nothing = !attention.holds.length && !attention.underFloor.length && !attention.failedJobs.length;
+  const nothing = !excursions.length && !attention.holds.length && !attention.underFloor.length && !attention.failedJobs.length;
   return (
     <>
       <PageHeader eyebrow={context.tenantName} title="Needs attention" />
-      {nothing ? <EmptyState>Nothing needs attention: no lots on hold, none under its yield floor, no failed uploads.</EmptyState> : null}
+      {nothing ? <EmptyState>Nothing needs attention: no open excursions, no lots on hold, none under its yield floor, no failed uploads.</EmptyState> : null}
       <div className="grid gap-4 lg:grid-cols-3">
+        {excursions.length ? (
+          <Panel title={`Open excursions (${excursions.length})`}>
+            <ul className="space-y-1.5 text-sm">
+              {excursions.slice(0, 8).map((x) => (
+                <li key={x.id}>
+                  <Link className="font-medium text-alert underline-offset-2 hover:underline" href={`/excursions/${x.number}`}>#{x.number}</Link> {x.title}{" "}
+                  <span className="text-xs text-ink-muted">· {x.status}{x.owner ? ` · ${x.owner}` : " · no owner"}</span>
+                </li>
+              ))}
+            </ul>
+            <Link href="/excursions" className="mt-2 inline-block text-sm text-accent underline">All excursions</Link>
+          </Panel>
+        ) : null}
         {attention.holds.length ? (
           <Panel title={`On hold (${attention.holds.length})`}>
             <ul className="space-y-1 text-sm">{attention.holds.map((l) => <li key={l.lot}>{lotLink(l.lot)} <span className="text-ink-soft">· {l.product} · {formatPercent(l.yield)}</span></li>)}</ul>
