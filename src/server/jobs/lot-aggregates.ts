@@ -27,14 +27,20 @@ export async function replaceWafers(
         ? `select wafer_slot, $5::float8 as low, $6::float8 as high from tmp_dies group by wafer_slot`
         : `select wafer_slot, null::float8 as low, null::float8 as high from tmp_dies where false group by wafer_slot`;
 
+  // Bin counts come from one grouped pass (a subquery per wafer rescanned tmp_dies 25 times), and out-of-window
+  // counts from the window computed here (counting them in dies afterwards rescanned the lot's dies per wafer).
   await client.query(
-    `insert into wafers (tenant_id, lot_id, slot, tested, pass, median_conductance_s, bin_counts, window_low_s, window_high_s, job_id, probed_at)
+    `insert into wafers (tenant_id, lot_id, slot, tested, pass, median_conductance_s, bin_counts, window_low_s, window_high_s, out_of_window, job_id, probed_at)
      select $1, $2, t.wafer_slot, count(*), count(*) filter (where t.bin = 'PASS'),
             percentile_cont(0.5) within group (order by t.conductance_s) filter (where t.${PARAMETRIC}),
-            (select jsonb_object_agg(bin, n) from (select bin, count(*) as n from tmp_dies b where b.wafer_slot = t.wafer_slot group by bin) c),
-            w.low, w.high, $3, $4
-       from tmp_dies t left join (${windowSql}) w on w.wafer_slot = t.wafer_slot
-      group by t.wafer_slot, w.low, w.high`,
+            b.counts, w.low, w.high,
+            count(*) filter (where t.bin = 'PASS' and (t.conductance_s < w.low or t.conductance_s > w.high)),
+            $3, $4
+       from tmp_dies t
+       left join (${windowSql}) w on w.wafer_slot = t.wafer_slot
+       join (select wafer_slot, jsonb_object_agg(bin, n) as counts
+               from (select wafer_slot, bin, count(*) as n from tmp_dies group by wafer_slot, bin) c group by wafer_slot) b on b.wafer_slot = t.wafer_slot
+      group by t.wafer_slot, w.low, w.high, b.counts`,
     dieWindow === "pat" ? [tenantId, lotId, jobId, probedAt, k] : staticWindow ? [tenantId, lotId, jobId, probedAt, staticWindow.lowS, staticWindow.highS] : [tenantId, lotId, jobId, probedAt],
   );
   await client.query(
@@ -45,12 +51,6 @@ export async function replaceWafers(
             coalesce(t.bin = 'PASS' and (t.conductance_s < w.window_low_s or t.conductance_s > w.window_high_s), false)
        from tmp_dies t join wafers w on w.tenant_id = $1 and w.lot_id = $2 and w.slot = t.wafer_slot`,
     [tenantId, lotId],
-  );
-  await client.query(
-    `update wafers w set out_of_window = d.n
-       from (select wafer_slot, count(*) filter (where out_of_window) as n from dies where tenant_id = $1 and lot_id = $2 group by wafer_slot) d
-      where w.tenant_id = $1 and w.lot_id = $2 and w.slot = d.wafer_slot and w.slot = any($3::int[])`,
-    [tenantId, lotId, slots],
   );
   return slots;
 }
