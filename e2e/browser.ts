@@ -31,9 +31,18 @@ export async function localOnlyContext(browser: Browser): Promise<{ context: Bro
   return { context, external };
 }
 
+/**
+ * Waits until the page's scripts have loaded: a form clicked before React hydrates it is submitted natively and
+ * its result never shows (seen on a loaded machine).
+ */
+export async function settled(page: Page): Promise<void> {
+  await page.waitForLoadState("networkidle");
+}
+
 /** Signs in through the sign-in form, as a person would, and waits for the home page. */
 export async function signIn(page: Page, email: string, password: string): Promise<void> {
   await page.goto(`${appUrl}/sign-in`);
+  await settled(page);
   await page.getByLabel("E-mail").fill(email);
   await page.getByLabel("Password").fill(password);
   await page.getByRole("button", { name: "Sign in" }).click();

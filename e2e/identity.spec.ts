@@ -1,7 +1,7 @@
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createTestTenant, ownerPool, TEST_PASSWORD, type TestTenant } from "../src/test/tenants";
-import { appUrl, launchBrowser, signIn } from "./browser";
+import { appUrl, launchBrowser, settled, signIn } from "./browser";
 import { firstLink, waitForMessage } from "./mailbox";
 
 let browser: Browser;
@@ -36,6 +36,7 @@ describe("invite → e-mail → accept → sign in → sign out, in a real brows
 
     const guest = await (await browser.newContext()).newPage();
     await guest.goto(link);
+    await settled(guest);
     await guest.getByRole("heading", { name: `Join ${tenant.name}` }).waitFor();
     await guest.getByLabel("Your name").fill("Nadia Newcomer");
     await guest.getByLabel("Choose a password").fill("a-long-enough-password");
@@ -69,12 +70,16 @@ describe("invite → e-mail → accept → sign in → sign out, in a real brows
   it("resets a forgotten password through the e-mailed link, after which only the new password works", async () => {
     const page = await (await browser.newContext()).newPage();
     await page.goto(`${appUrl}/sign-in`);
+    await settled(page);
     await page.getByRole("link", { name: "Forgot your password?" }).click();
+    await page.waitForURL(`${appUrl}/reset`);
+    await settled(page);
     await page.getByLabel("E-mail").fill(tenant.users.engineer!.email);
     await page.getByRole("button", { name: "Send reset link" }).click();
     await page.getByText("a reset link is on its way").waitFor();
     const message = await waitForMessage(tenant.users.engineer!.email, "Reset your Lotwarden password");
     await page.goto(firstLink(message, "/reset/"));
+    await settled(page);
     await page.getByLabel("New password").fill("a-brand-new-password");
     await page.getByRole("button", { name: "Set password and sign in" }).click();
     await page.waitForURL(`${appUrl}/`);

@@ -138,4 +138,21 @@ describe("probe lot ingest through the API and the worker (§4, §5, §9)", () =
     expect((await upload(tenant, fixture("good-small.csv"), "", "analyst")).status).toBe(403);
     expect((await upload(tenant, fixture("good-small.csv"), "", "customer")).status).toBe(403);
   });
+
+  it("stores and reads every byte of an upload larger than 10 MB (threat: a body silently cut by a proxy buffer)", async () => {
+    const tenant = await freshTenant("ingest-big");
+    const rows = ["# lot: BIG-0001", "# product: VD-NW40", "# chuck_temperature_k: 300.15", "wafer,die_x,die_y,bias_mv,current_na"];
+    for (let die = 0; rows.length < 600_000; die++) {
+      for (let v = -10; v <= 10; v += 2) rows.push(`${1 + (die % 25)},${Math.floor(die / 25) % 250},${Math.floor(die / 6250)},${v},${(v * 1.5).toFixed(6)}`);
+    }
+    const body = rows.join("\n") + "\n";
+    expect(Buffer.byteLength(body)).toBeGreaterThan(11 * 1024 * 1024);
+    const response = await upload(tenant, body);
+    expect(response.status).toBe(202);
+    const job = await waitForJob(tenant, (await response.json()).job.id, 170_000);
+    expect(job.status).toBe("done");
+    expect(job.report?.rows).toBe(rows.length - 4);
+    const stored = await pool.query("select size_bytes from raw_files where tenant_id = $1", [tenant.id]);
+    expect(Number(stored.rows[0].size_bytes)).toBe(Buffer.byteLength(body));
+  }, 180_000);
 });
