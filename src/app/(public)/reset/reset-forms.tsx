@@ -1,6 +1,6 @@
 "use client";
 
-import { useRouter } from "next/navigation";
+import { useRedirectingAction } from "@/hooks/use-redirecting-action";
 import { useActionState } from "react";
 import { Button } from "@/components/ui/button";
 import { FormMessage, TextField } from "@/components/ui/field";
@@ -21,12 +21,7 @@ export function RequestResetForm() {
 }
 
 export function NewPasswordForm({ token }: { token: string }) {
-  const router = useRouter();
-  const [state, submit, pending] = useActionState<Awaited<ReturnType<typeof resetPasswordAction>> | null, FormData>(async (_p, form) => {
-    const result = await resetPasswordAction(form);
-    if (result.ok) router.replace(result.data.next);
-    return result;
-  }, null);
+  const [state, submit, pending] = useRedirectingAction(resetPasswordAction);
   return (
     <form action={submit} className="mt-6 space-y-4" noValidate>
       <input type="hidden" name="token" value={token} />

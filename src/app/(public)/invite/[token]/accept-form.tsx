@@ -1,20 +1,12 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { useActionState } from "react";
+import { useRedirectingAction } from "@/hooks/use-redirecting-action";
 import { Button } from "@/components/ui/button";
 import { FormMessage, TextField } from "@/components/ui/field";
 import { acceptInvitationAction } from "./actions";
 
-type State = Awaited<ReturnType<typeof acceptInvitationAction>> | null;
-
 export function AcceptForm({ token, email, existingUser }: { token: string; email: string; existingUser: boolean }) {
-  const router = useRouter();
-  const [state, submit, pending] = useActionState<State, FormData>(async (_previous, form) => {
-    const result = await acceptInvitationAction(form);
-    if (result.ok) router.replace(result.data.next);
-    return result;
-  }, null);
+  const [state, submit, pending] = useRedirectingAction(acceptInvitationAction);
   const errors = state && !state.ok ? state.fieldErrors : undefined;
   return (
     <form action={submit} className="mt-6 space-y-4" noValidate>
