@@ -1,9 +1,10 @@
 import "server-only";
 import type pg from "pg";
+import { PARAMETRIC_BINS } from "@/domain/yield/lot-analysis";
 
 // Set-based steps after the file is streamed into tmp_dies, all inside the job's one transaction.
 // Wafer median G is taken over the parametric dies (not NODATA, OPEN or SHORT): gross fails would only drag it.
-const PARAMETRIC = "bin not in ('NODATA', 'OPEN', 'SHORT')";
+const PARAMETRIC = `bin in (${PARAMETRIC_BINS.map((b) => `'${b}'`).join(", ")})`;
 
 /** Replaces the file's wafers of the lot: old wafers and their dies go, the new ones arrive whole. */
 export async function replaceWafers(

@@ -2,6 +2,8 @@ import "server-only";
 import type { Kysely } from "kysely";
 import { BINS } from "@/domain/transport";
 import type { MapDie } from "@/domain/wafer-map";
+import type { Bin } from "@/domain/yield";
+import { PARAMETRIC_BINS } from "@/domain/yield/lot-analysis";
 import type { Product } from "@/lib/schemas/products";
 import { listDies } from "../db/queries/dies";
 import { getLotDetail } from "../db/queries/lots";
@@ -39,7 +41,7 @@ export async function buildLotReport(tx: Kysely<Database>, lotNumber: string): P
   const lot = await getLotDetail(tx, lotNumber);
   const product = await getProduct(tx, lot.product);
   const dies = await listDies(tx, lot.id, { format: "json" });
-  const measured = dies.filter((d) => d.conductanceS !== null && d.bin !== "NODATA" && d.bin !== "OPEN" && d.bin !== "SHORT");
+  const measured = dies.filter((d) => d.conductanceS !== null && PARAMETRIC_BINS.includes(d.bin as Bin));
   const inSpec = measured.filter((d) => (product.specLowS === null || d.conductanceS! >= product.specLowS) && (product.specHighS === null || d.conductanceS! <= product.specHighS));
   const shippedPass = dies.filter((d) => d.bin === "PASS" && !d.inked).length;
   const maps = lot.wafers.map((w) => ({

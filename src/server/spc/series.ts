@@ -4,7 +4,7 @@ import type { Database } from "../db/schema";
 import type { SeriesLot } from "./chart-judgement";
 
 /** Bins whose G is a measurement of the device (gross fails excluded), as lot-aggregates.ts takes wafer medians. */
-export const PARAMETRIC_BINS = ["PASS", "LOW", "HIGH", "NONLINEAR"] as const;
+export { PARAMETRIC_BINS } from "@/domain/yield/lot-analysis";
 
 export interface SeriesWindow {
   productId: string;
