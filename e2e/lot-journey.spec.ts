@@ -2,6 +2,8 @@ import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { api, createSampleProduct, fixturePath } from "../src/test/ingest-helpers";
 import { createTestTenant, ownerPool, TEST_PASSWORD, type TestTenant } from "../src/test/tenants";
+import { plotRectPx } from "../src/components/charts/wafer-map-options";
+import { mapLayout } from "../src/domain/wafer-map/layout";
 import { appUrl, launchBrowser, signIn } from "./browser";
 
 let browser: Browser;
@@ -42,6 +44,8 @@ describe("upload a lot, watch it finish, explore its wafer map (browser)", () =>
     await map.waitFor();
     expect(Number(await map.getAttribute("data-die-count"))).toBe(dies.length);
     expect(Number(await map.getAttribute("data-flagged-count"))).toBe(flagged);
+    // …and that many rings were actually painted on the map
+    await expect.poll(() => map.getAttribute("data-flagged-drawn")).toBe(String(flagged));
 
     const target = dies[1] as { x: number; y: number; bin: string };
     const table = page.getByRole("region", { name: "Dies of the selected wafer" });
@@ -54,6 +58,47 @@ describe("upload a lot, watch it finish, explore its wafer map (browser)", () =>
     await drawer.waitFor();
     await drawer.getByText("Conductance G").waitFor();
     await drawer.getByText(/inside the thermal window|beyond the thermal window/).waitFor();
+  });
+
+  it("shows the die under the pointer in a tooltip, and a click on the map selects that die and opens its drawer", async () => {
+    const { dies } = await (await api(tenant, "analyst", "/api/v1/lots/TW2611-0147/dies?wafer=1")).json();
+    const page = await (await browser.newContext({ viewport: { width: 1440, height: 900 } })).newPage();
+    await signIn(page, tenant.users.analyst!.email, TEST_PASSWORD);
+    await page.goto(`${appUrl}/lots/TW2611-0147?wafer=1`);
+    const map = page.getByRole("application", { name: /Wafer map of wafer 1/ });
+    await map.waitFor();
+    await expect.poll(() => map.getAttribute("data-flagged-drawn")).not.toBeNull();
+    await map.scrollIntoViewIfNeeded();
+    const box = (await map.boundingBox())!;
+    // Where the map draws each die: the layout in mm, then the plot's px (same modules as the map itself).
+    const layout = mapLayout(dies, { dieWidthMm: 2, dieHeightMm: 2, waferDiameterMm: 150, edgeExclusionMm: 3 });
+    const plot = plotRectPx("large", box.width, box.height);
+    const half = layout.viewHalfSideMm;
+    // Die (1, 1): it has a neighbour below, (1, 0), for the keyboard step.
+    const index = dies.findIndex((d: { x: number; y: number }) => d.x === 1 && d.y === 1);
+    const target = dies[index] as { x: number; y: number; bin: string };
+    const rect = layout.rects[index]!;
+    const px = box.x + plot.x + ((rect.centreXMm + half) / (2 * half)) * plot.width;
+    const py = box.y + plot.y + ((half - rect.centreYMm) / (2 * half)) * plot.height;
+
+    await page.mouse.move(px, py);
+    const tip = map.getByRole("tooltip");
+    await tip.getByText(`(${target.x}, ${target.y})`).waitFor();
+    await tip.getByText(target.bin, { exact: true }).waitFor();
+    await page.mouse.move(box.x + 2, box.y + 2); // off the wafer: no die, no tooltip
+    await tip.waitFor({ state: "hidden" });
+
+    await page.mouse.click(px, py);
+    await page.waitForURL(new RegExp(`die=${target.x}%2C${target.y}|die=${target.x},${target.y}`));
+    await expect.poll(() => map.getAttribute("data-selected")).toBe(`${target.x},${target.y}`);
+    await page.getByRole("complementary", { name: `Die ${target.x}, ${target.y} of wafer 1` }).waitFor();
+
+    // Keyboard: the cursor starts on the selected die and steps down to (1, 0); Escape hides its tooltip.
+    await map.focus();
+    await page.keyboard.press("ArrowDown");
+    await tip.getByText("(1, 0)").waitFor();
+    await page.keyboard.press("Escape");
+    await tip.waitFor({ state: "hidden" });
   });
 
   it("answers another tenant's lot with the 404 page (threat: reading a competitor's lot by URL)", async () => {

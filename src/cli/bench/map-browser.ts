@@ -16,6 +16,8 @@ const QUIET_MS = 750;
 export interface PaintRun {
   readyMs: number;
   paintedMs: number;
+  /** The dies response's last byte to the first frame after the map's last draw: the map's own render time. */
+  dataToPaintMs: number;
   diesFetchMs: number;
   longTaskMs: number;
   longestTaskMs: number;
@@ -32,6 +34,8 @@ export interface InteractiveRun {
   interactiveMs: number;
   /** First mouse move over the map to the tooltip. */
   tooltipLatencyMs: number;
+  /** The dies response's last byte to the first tooltip: the map's own time to interactive. */
+  dataToInteractiveMs: number;
 }
 
 export async function launchBench(): Promise<Browser> {
@@ -117,6 +121,7 @@ export async function measurePaint(browser: Browser, appUrl: string, email: stri
     return {
       readyMs: quiet.readyAt,
       paintedMs,
+      dataToPaintMs: after.diesFetch ? paintedMs - after.diesFetch[1] : Number.NaN,
       diesFetchMs: after.diesFetch ? after.diesFetch[1] - after.diesFetch[0] : Number.NaN,
       longTaskMs: tasks.reduce((sum, [, d]) => sum + d, 0),
       longestTaskMs: Math.max(0, ...tasks.map(([, d]) => d)),
@@ -144,7 +149,10 @@ export async function measureInteractive(browser: Browser, appUrl: string, email
     for (let i = 0; ; i++) {
       await page.mouse.move(centre.x + (i % 2), centre.y);
       const state = await probe(page);
-      if (state.tooltipAt) return { interactiveMs: state.tooltipAt, tooltipLatencyMs: state.tooltipAt - firstMoveAt };
+      if (state.tooltipAt) {
+        const dataAt = state.diesFetch ? state.diesFetch[1] : Number.NaN;
+        return { interactiveMs: state.tooltipAt, tooltipLatencyMs: state.tooltipAt - firstMoveAt, dataToInteractiveMs: state.tooltipAt - dataAt };
+      }
       if (Date.now() > deadline) throw new Error("no tooltip within 30 s of hovering the centre die");
       await page.evaluate(NEXT_FRAME);
     }

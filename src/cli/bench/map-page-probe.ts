@@ -10,7 +10,7 @@ export interface ProbeState {
   mapDraws: number;
   /** Every rAF callback's start time since navigation. */
   frames: number[];
-  /** First time the echarts tooltip was visible with a die in it, and the die it named. */
+  /** First time the map's tooltip was visible with a die in it, and the die it named. */
   tooltipAt: number;
   tooltipDie: string;
   /** Long tasks (≥ 50 ms on the main thread): [startTime, duration]. */
@@ -45,10 +45,8 @@ const PROBE_SOURCE = `(() => {
   const tooltip = () => {
     const map = document.querySelector('[role="application"]');
     if (!map) return null;
-    for (const el of map.querySelectorAll("div")) {
-      if (el.style.zIndex === "9999999" && el.style.display !== "none" && el.style.visibility !== "hidden" && /Die\\s*\\(/.test(el.textContent)) return el;
-    }
-    return null;
+    const el = map.querySelector('[role="tooltip"]');
+    return el && !el.hidden && /Die\\s*\\(/.test(el.textContent) ? el : null;
   };
   b.tooltipNow = () => { const el = tooltip(); const m = el && /Die\\s*\\(([^)]*)\\)/.exec(el.textContent); return m ? m[1] : ""; };
   const frame = (t) => {

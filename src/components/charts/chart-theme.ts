@@ -55,3 +55,7 @@ export function tooltipHtml(heading: string | null, rows: readonly { label: stri
     .join("");
   return `${head}<table style="border-collapse:collapse">${body}</table>`;
 }
+
+/** Tailwind classes of a tooltip drawn by the app itself (the wafer map's), matching TOOLTIP_STYLE. */
+export const TOOLTIP_BOX_CLASS =
+  "whitespace-nowrap rounded border border-slate-line bg-white px-2.5 py-1.5 text-xs text-ink tabular-nums shadow-[0_2px_8px_rgba(27,36,48,0.12)]";

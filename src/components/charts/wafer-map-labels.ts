@@ -6,7 +6,6 @@ import { conductanceTitle, conductanceUnitSymbol, type ConductanceUnit } from "@
 import type { ValueRange } from "@/domain/wafer-map/value-range";
 import { formatPlain } from "@/domain/transport/format-si";
 import { INK_SOFT, TEXT_STYLE, tooltipHtml } from "./chart-theme";
-import { DIE_DIM } from "./wafer-map-render";
 
 // Legends start right of the square plot (which ends at 78.8 % of the width), so a zoomed map never runs under them.
 const LEGEND_LEFT = "80.5%";
@@ -70,11 +69,7 @@ export function scaleTitle(unit: ConductanceUnit, visible: boolean): GraphicComp
   };
 }
 
-/** Tooltip body for a hovered die (dieSummaryRows), or "" when the hovered item is not a die. */
-export function dieTooltip(params: unknown, dies: readonly MapDie[], unit: ConductanceUnit): string {
-  const first: unknown = Array.isArray(params) ? params[0] : params;
-  const value = (first as { value?: unknown } | undefined)?.value;
-  if (!Array.isArray(value)) return "";
-  const die = dies[Number(value[DIE_DIM.dieIndex])];
-  return die ? tooltipHtml(null, dieSummaryRows(die, unit)) : "";
+/** Tooltip body for a die (dieSummaryRows: position, bin, G in the unit, η, R², window, flags). */
+export function dieTooltipHtml(die: MapDie, unit: ConductanceUnit): string {
+  return tooltipHtml(null, dieSummaryRows(die, unit));
 }

@@ -5,7 +5,8 @@ import { mapLayout } from "@/domain/wafer-map/layout";
 import type { MapDie } from "@/domain/wafer-map/map-die";
 import { CONDUCTANCE_QUANTUM_S } from "@/domain/transport/constants";
 import { buildWaferMap, LARGE_ASPECT_RATIO, plotRectPx, type WaferMapInput } from "./wafer-map-options";
-import { flatten, PX_PER_MM, renderSeries, seriesList, testDie } from "./wafer-map-test-support";
+import { dieTooltipHtml } from "./wafer-map-labels";
+import { flatten, PX_PER_MM, recordingCanvas, renderSeries, seriesList, testDie } from "./wafer-map-test-support";
 
 // 4 mm × 2 mm dies on a 100 mm wafer; a 3 × 3 grid centred on (1, 1).
 const geometry = { dieWidthMm: 4, dieHeightMm: 2, waferDiameterMm: 100, edgeExclusionMm: 3 };
@@ -24,6 +25,14 @@ const dies: MapDie[] = [
 function build(overrides: Partial<WaferMapInput> = {}) {
   const input = { dies, layout: mapLayout(dies, geometry), colourBy: "conductance" as const, unit: "µS" as const, size: "large" as const, ...overrides };
   return buildWaferMap(input);
+}
+
+/** Builds the map on a recording canvas and paints every die field once, as echarts would, into `plot`. */
+function paint(overrides: Partial<WaferMapInput> = {}, plot?: { x: number; y: number; width: number; height: number }) {
+  const { factory, painted } = recordingCanvas();
+  const model = build({ createCanvas: factory, ...overrides });
+  const elements = dieSeries(model).flatMap((s) => flatten(renderSeries(s, plot)));
+  return { model, painted, elements };
 }
 
 function dieSeries(model: ReturnType<typeof build>) {
@@ -47,47 +56,83 @@ describe("buildWaferMap counts", () => {
 });
 
 describe("die drawing", () => {
-  const drawn = dieSeries(build()).flatMap((s) => renderSeries(s));
-  const elements = flatten(drawn);
+  const { model, painted, elements } = paint();
 
-  it("rings exactly the out-of-window dies with a white dot outlined in black", () => {
-    const rings = elements.filter((e) => e.type === "circle");
-    expect(rings).toHaveLength(build().flaggedCount);
-    for (const ring of rings) expect(ring.style).toMatchObject({ fill: "#ffffff", stroke: "#000000" });
+  it("hands echarts one image per die field, covering the plot", () => {
+    expect(elements).toHaveLength(1);
+    expect(elements[0]).toMatchObject({ type: "image", style: { x: 0, y: 0, width: 1000, height: 1000 } });
+    // painted at twice the plot's size at least (screen pixel ratio, and the 2× PNG export), plot corner at 0, 0
+    expect(painted.canvas.width).toBeGreaterThanOrEqual(2000);
+    expect(painted.canvas.transform).toEqual([2, 0, 0, 2, -0, -0]);
   });
 
-  it("hatches the inked dies only", () => {
-    const hatched = drawn.filter((d) => flatten([d]).some((e) => e.type === "line"));
-    expect(hatched).toHaveLength(2);
+  it("rings exactly the out-of-window dies with a white dot outlined in black, and reports the rings it drew", () => {
+    expect(painted.rings).toHaveLength(2);
+    for (const ring of painted.rings) expect(ring).toMatchObject({ fill: "#ffffff", stroke: "#000000" });
+    // dies (0, 0) and (2, 0): centres −4 and +4 mm, 2 mm below the centre row → (460, 520) and (540, 520) px
+    expect(painted.rings.map((r) => [r.cx, r.cy])).toEqual([[460, 520], [540, 520]]);
+    expect(model.drawn().rings).toBe(model.flaggedCount);
+  });
+
+  it("hatches the inked dies only, inside their rectangles", () => {
+    expect(model.drawn().hatched).toBe(2);
+    expect(painted.lines.length).toBeGreaterThan(0);
+    // inked dies (1, 0) and (2, 0) span x 480–520 and 520–560 px, y 510–530 px
+    for (const l of painted.lines) {
+      expect(Math.min(l.x1, l.x2)).toBeGreaterThanOrEqual(480);
+      expect(Math.min(l.y1, l.y2)).toBeGreaterThanOrEqual(510);
+      expect(Math.max(l.y1, l.y2)).toBeLessThanOrEqual(530);
+    }
   });
 
   it("draws each die in its true aspect ratio, less a hairline gap", () => {
-    const rects = elements.filter((e) => e.type === "rect");
-    expect(rects).toHaveLength(9);
-    for (const rect of rects) {
-      const { width, height } = rect.shape as { width: number; height: number };
+    expect(painted.rects).toHaveLength(9);
+    for (const rect of painted.rects) {
       // 40 × 20 px at 10 px/mm, minus the 1 px gap in each direction
-      expect(width).toBeCloseTo(4 * PX_PER_MM - 1, 9);
-      expect(height).toBeCloseTo(2 * PX_PER_MM - 1, 9);
+      expect(rect.width).toBeCloseTo(4 * PX_PER_MM - 1, 9);
+      expect(rect.height).toBeCloseTo(2 * PX_PER_MM - 1, 9);
     }
   });
 
   it("colours by cividis over the colour range and draws a missing conductance grey", () => {
-    const model = build();
     const range = model.colourRange;
     expect(range).not.toBeNull();
-    const fills = flatten(renderSeries(onlyDieSeries(model))).filter((e) => e.type === "rect").map((e) => e.style?.fill);
+    const fills = painted.rects.map((r) => r.fill);
     expect(fills).toContain(BIN_COLOURS.NODATA);
-    // die (1, 1) has G = 11 µS
+    // die (1, 1) has G = 11 µS and sits at the centre: 480–520 × 490–510 px less the gap
     const t = (11 - (range?.min ?? 0)) / ((range?.max ?? 1) - (range?.min ?? 0));
-    expect(fills).toContain(cividis(t));
+    expect(painted.rects.find((r) => r.x === 480.5 && r.y === 490.5)?.fill).toBe(cividis(t));
   });
 
   it("skips dies outside the plot and cuts those straddling its edge", () => {
     // dies centred at x = −4, 0, 4 mm → 460, 500, 540 px; a plot ending at 500 px keeps the left half
-    const cut = flatten(renderSeries(onlyDieSeries(build()), { x: 0, y: 0, width: 500, height: 1000 })).filter((e) => e.type === "rect");
-    expect(cut).toHaveLength(6);
-    for (const rect of cut) expect((rect.shape as { x: number; width: number }).x + (rect.shape as { width: number }).width).toBeLessThanOrEqual(500);
+    const cut = paint({}, { x: 0, y: 0, width: 500, height: 1000 });
+    expect(cut.painted.rects).toHaveLength(6);
+    for (const rect of cut.painted.rects) expect(rect.x + rect.width).toBeLessThanOrEqual(500);
+    // the ring of die (2, 0) at 540 px is off the plot; die (0, 0)'s stays
+    expect(cut.model.drawn().rings).toBe(1);
+  });
+
+  it("repaints only when the view changes", () => {
+    const { factory, painted: again } = recordingCanvas();
+    const [series] = dieSeries(build({ createCanvas: factory }));
+    renderSeries(series!);
+    renderSeries(series!);
+    expect(again.rects).toHaveLength(9);
+    renderSeries(series!, { x: 0, y: 0, width: 800, height: 800 });
+    expect(again.rects).toHaveLength(18);
+  });
+});
+
+describe("hit test", () => {
+  it("finds the die whose cell holds a point of the map plane, and nothing off the grid", () => {
+    const model = build();
+    // the grid centre (1, 1) is at the origin; dies are 4 × 2 mm
+    expect(model.dieAt(0, 0)).toBe(4);
+    expect(model.dieAt(-4, -2)).toBe(0); // die (0, 0)
+    expect(model.dieAt(5.9, 2.9)).toBe(8); // die (2, 2), near its corner
+    expect(model.dieAt(6.1, 0)).toBeNull();
+    expect(model.dieAt(Number.NaN, 0)).toBeNull();
   });
 });
 
@@ -121,11 +166,13 @@ describe("legends", () => {
     expect(model.option.visualMap).toEqual([]);
   });
 
-  it("locates a die in its bin series", () => {
-    const model = build({ colourBy: "bin" });
-    // series 0 is the wafer disc; LOW is the second bin series; die 7 is the second LOW die
-    expect(model.locate(7)).toEqual({ seriesIndex: 2, dataIndex: 1 });
-    expect(model.locate(99)).toBeNull();
+  it("paints each bin's dies in its own field, in the bin colour, and leaves a hidden bin out of the counts", () => {
+    const { model, painted } = paint({ colourBy: "bin" });
+    expect(painted.rects.filter((r) => r.fill === BIN_COLOURS.LOW)).toHaveLength(2);
+    expect(painted.rects.filter((r) => r.fill === BIN_COLOURS.PASS)).toHaveLength(5);
+    expect(model.drawn().rings).toBe(2);
+    // die (2, 0) is HIGH and out of window; hiding HIGH leaves die (0, 0)'s ring
+    expect(model.drawn(new Set(["HIGH"])).rings).toBe(1);
   });
 });
 
@@ -136,16 +183,16 @@ describe("small thumbnails", () => {
     expect((model.option.tooltip as { show: boolean }).show).toBe(false);
     expect(model.option.dataZoom).toEqual([]);
     expect(dieSeries(model).every((s) => s.silent === true)).toBe(true);
+    expect(paint({ size: "small" }).painted.rects).toHaveLength(9);
   });
 });
 
 describe("tooltip", () => {
-  it("describes the hovered die with G in the unit, and nothing for an item that is not a die", () => {
-    const formatter = (build().option.tooltip as { formatter: (p: unknown) => string }).formatter;
-    const html = formatter({ value: [0, 0, 11, 4] });
+  it("describes a die with G in the unit and its flags", () => {
+    const html = dieTooltipHtml(dies[4]!, "µS");
     expect(html).toContain("(1, 1)");
     expect(html).toContain("11 µS");
-    expect(formatter({ value: "not a die" })).toBe("");
+    expect(dieTooltipHtml(dies[0]!, "µS")).toContain("out of window");
   });
 });
 

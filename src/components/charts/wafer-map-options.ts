@@ -15,9 +15,10 @@ import type { Bin, MapDie } from "@/domain/wafer-map/map-die";
 import type { RectPx } from "@/domain/wafer-map/rect-px";
 import { scaleConductance, type ConductanceUnit } from "@/domain/wafer-map/units";
 import { colourScaleRange, type ValueRange } from "@/domain/wafer-map/value-range";
-import { TEXT_STYLE, TOOLTIP_STYLE } from "./chart-theme";
-import { binLegend, conductanceScale, dieTooltip, scaleTitle } from "./wafer-map-labels";
-import { DIE_DIM, dieRenderer, waferDiscRenderer, waferMarksRenderer } from "./wafer-map-render";
+import { TEXT_STYLE } from "./chart-theme";
+import { dieHitTest, NO_PAINT, type PaintCounts } from "@/domain/wafer-map/paint";
+import { binLegend, conductanceScale, scaleTitle } from "./wafer-map-labels";
+import { dieFieldRenderer, waferDiscRenderer, waferMarksRenderer, type CanvasFactory } from "./wafer-map-render";
 
 export type WaferMapOption = ComposeOption<
   | CustomSeriesOption
@@ -40,6 +41,8 @@ export interface WaferMapInput {
   readonly size: WaferMapSize;
   /** Colour-scale range in S; ignored unless finite with minS < maxS. */
   readonly valueRange?: { readonly minS: number; readonly maxS: number } | null;
+  /** Where the die fields are painted; default a new HTML canvas (tests pass a recording stand-in). */
+  readonly createCanvas?: CanvasFactory;
 }
 
 export interface WaferMapModel {
@@ -51,8 +54,10 @@ export interface WaferMapModel {
   readonly binCounts: Readonly<Record<Bin, number>>;
   /** Colour-scale range in the display unit; null when colouring by bin or when no die has a conductance. */
   readonly colourRange: ValueRange | null;
-  /** Series and data index of a die, for echarts actions such as showTip. */
-  locate(dieIndex: number): { seriesIndex: number; dataIndex: number } | null;
+  /** Index of the die under a point of the map plane (mm, y up), or null: the hover and click hit test. */
+  dieAt(xMm: number, yMm: number): number | null;
+  /** What the last paint of every die field drew, summed over the fields not hidden by the legend (names). */
+  drawn(hidden?: ReadonlySet<string>): PaintCounts;
 }
 
 // Width : height of the large map's box. The square plot takes 96 % of the height and the legend the right
@@ -69,8 +74,7 @@ export function plotRectPx(size: WaferMapSize, widthPx: number, heightPx: number
   return { x: f.x * widthPx, y: f.y * heightPx, width: f.width * widthPx, height: f.height * heightPx };
 }
 
-const PROGRESSIVE_THRESHOLD = 8000;
-/** Canvas layer for marks drawn over progressively rendered dies (the selection overlay uses it too). */
+/** Canvas layer of the selection outline, above the chart, so moving it repaints one rectangle and no die. */
 export const OVERLAY_ZLEVEL = 1;
 
 function gridOption(size: WaferMapSize): GridComponentOption {
@@ -96,32 +100,29 @@ function resolveRange(values: readonly (number | null)[], input: WaferMapInput):
   return colourScaleRange(values);
 }
 
-function dieSeries(id: string, name: string, data: number[][], render: CustomSeriesOption["renderItem"], silent: boolean, colour?: string): CustomSeriesOption {
+function dieSeries(id: string, name: string, renderItem: CustomSeriesOption["renderItem"], colour?: string): CustomSeriesOption {
+  // One data item at the origin: the field paints all of its dies at once (wafer-map-render dieFieldRenderer).
+  // Silent, with no tooltip: the map's own pointer handling finds the die under the cursor (dieAt).
   return {
     type: "custom",
     id,
     name,
-    data: data as CustomSeriesOption["data"],
-    renderItem: render,
-    encode: { x: DIE_DIM.xMm, y: DIE_DIM.yMm },
+    data: [[0, 0]],
+    renderItem,
+    encode: { x: 0, y: 1 },
     clip: true,
-    silent,
+    silent: true,
     z: 2,
-    progressive: 4000,
-    progressiveThreshold: PROGRESSIVE_THRESHOLD,
-    // The tooltip and the selection ring mark the hovered die; echarts' own hover highlight repaints every die
-    // element on each mouse move (≈ 12 ms a move on a 20,000-die wafer, measured by bench:map).
-    // (`emphasis.disabled` applies to every series at run time; echarts' types only list it for some.)
-    emphasis: { disabled: true } as CustomSeriesOption["emphasis"],
+    tooltip: { show: false },
     ...(colour ? { itemStyle: { color: colour } } : {}),
   };
 }
 
 /**
- * The echarts option of a wafer map and the counts the container exposes: one custom series per colour group
- * (all dies, or one per bin present in BIN_ORDER) over a square cartesian plane in mm, the disc below and the
- * usable ring and notch above, zoom and pan on both axes for the large map, a cividis legend titled with the
- * unit or a bin legend with counts. Empty `dies` draws the bare wafer.
+ * The echarts option of a wafer map and the counts the container exposes: one die field per colour group (all
+ * dies, or one per bin present in BIN_ORDER, so the bin legend toggles them) over a square cartesian plane in
+ * mm, the disc below and the usable ring and notch above, zoom and pan on both axes for the large map, a
+ * cividis legend titled with the unit or a bin legend with counts. Empty `dies` draws the bare wafer.
  */
 export function buildWaferMap(input: WaferMapInput): WaferMapModel {
   const { dies, layout, colourBy, unit, size } = input;
@@ -141,30 +142,23 @@ export function buildWaferMap(input: WaferMapInput): WaferMapModel {
     colourBy === "bin"
       ? BIN_ORDER.filter((b) => binCounts[b] > 0).map((b) => ({ id: `dies-${b}`, name: b, bin: b, indices: [] }))
       : [{ id: "dies", name: "Dies", indices: [] }];
-  const seriesOfDie = new Int32Array(dies.length);
-  const dataOfDie = new Int32Array(dies.length);
   dies.forEach((d, i) => {
-    const g = colourBy === "bin" ? groups.findIndex((group) => group.bin === d.bin) : 0;
-    const group = groups[g] as DieGroup;
-    seriesOfDie[i] = g + 1; // series 0 is the wafer disc
-    dataOfDie[i] = group.indices.length;
-    group.indices.push(i);
+    const group = colourBy === "bin" ? groups.find((g) => g.bin === d.bin) : groups[0];
+    group?.indices.push(i);
   });
 
-  const render = dieRenderer(dies, layout, fills);
-  const item = (i: number) => {
-    const r = layout.rects[i];
-    return [r?.centreXMm ?? 0, r?.centreYMm ?? 0, values[i] ?? Number.NaN, i];
-  };
-  // Progressive rendering draws the dies on a layer above zlevel 0, so the marks then need a canvas of their own.
-  const marksLevel = dies.length > PROGRESSIVE_THRESHOLD ? OVERLAY_ZLEVEL : 0;
-  const outline = (id: string, renderItem: CustomSeriesOption["renderItem"], zlevel: number): CustomSeriesOption => ({
-    type: "custom", id, data: [[0, 0]], renderItem, silent: true, clip: true, zlevel, z: 1, tooltip: { show: false },
+  // The disc under the die fields (z 2), the usable ring and notch over them.
+  const outline = (id: string, renderItem: CustomSeriesOption["renderItem"], z: number): CustomSeriesOption => ({
+    type: "custom", id, data: [[0, 0]], renderItem, silent: true, clip: true, z, tooltip: { show: false },
   });
+  const painted = new Map<string, PaintCounts>(); // by series name, the legend's key
   const series: CustomSeriesOption[] = [
-    outline("wafer-disc", waferDiscRenderer(layout), 0),
-    ...groups.map((g) => dieSeries(g.id, g.name, g.indices.map(item), render, !large, g.bin ? BIN_COLOURS[g.bin] : undefined)),
-    outline("wafer-marks", waferMarksRenderer(layout), marksLevel),
+    outline("wafer-disc", waferDiscRenderer(layout), 1),
+    ...groups.map((g) => {
+      const render = dieFieldRenderer(dies, layout, fills, g.indices, (counts) => painted.set(g.name, counts), input.createCanvas);
+      return dieSeries(g.id, g.name, render, g.bin ? BIN_COLOURS[g.bin] : undefined);
+    }),
+    outline("wafer-marks", waferMarksRenderer(layout), 3),
   ];
   const half = layout.viewHalfSideMm;
   const axis = { type: "value" as const, min: -half, max: half, show: false };
@@ -176,9 +170,7 @@ export function buildWaferMap(input: WaferMapInput): WaferMapModel {
     xAxis: axis,
     yAxis: axis,
     series,
-    tooltip: large
-      ? { ...TOOLTIP_STYLE, trigger: "item", confine: true, formatter: (params) => dieTooltip(params, dies, unit) }
-      : { show: false },
+    tooltip: { show: false },
     dataZoom: large
       ? [
           { type: "inside", id: "zoom-x", xAxisIndex: 0, filterMode: "none" },
@@ -196,7 +188,11 @@ export function buildWaferMap(input: WaferMapInput): WaferMapModel {
     inkedCount: dies.filter((d) => d.inked).length,
     binCounts,
     colourRange,
-    locate: (dieIndex) =>
-      dieIndex >= 0 && dieIndex < dies.length ? { seriesIndex: seriesOfDie[dieIndex] ?? 0, dataIndex: dataOfDie[dieIndex] ?? 0 } : null,
+    dieAt: dieHitTest(dies, layout),
+    drawn: (hidden) => {
+      let total = NO_PAINT;
+      for (const [name, c] of painted) if (!hidden?.has(name)) total = { dies: total.dies + c.dies, rings: total.rings + c.rings, hatched: total.hatched + c.hatched };
+      return total;
+    },
   };
 }

@@ -2,19 +2,11 @@ import type {
   CustomSeriesRenderItem,
   CustomSeriesRenderItemAPI,
   CustomSeriesRenderItemParams,
-  CustomSeriesRenderItemReturn,
 } from "echarts";
-import { contrastInk } from "@/domain/wafer-map/cividis";
-import { hatchSegments } from "@/domain/wafer-map/hatch";
 import type { MapLayout } from "@/domain/wafer-map/layout";
-import type { MapDie } from "@/domain/wafer-map/map-die";
-import { containsPoint, intersectRect, type RectPx } from "@/domain/wafer-map/rect-px";
+import { paintDies, type MmToPx, type PaintContext, type PaintCounts, type PaintedDie } from "@/domain/wafer-map/paint";
+import type { RectPx } from "@/domain/wafer-map/rect-px";
 import { INK, INK_MUTED, SLATE_WASH } from "./chart-theme";
-
-type Element = NonNullable<CustomSeriesRenderItemReturn>;
-
-/** Index of each value in a die-series data item: [centreXMm, centreYMm, value in unit or null, die index]. */
-export const DIE_DIM = { xMm: 0, yMm: 1, value: 2, dieIndex: 3 } as const;
 
 function pixelSize(api: CustomSeriesRenderItemAPI, widthMm: number, heightMm: number): [number, number] {
   const size = api.size?.([widthMm, heightMm]) ?? [0, 0];
@@ -26,45 +18,67 @@ function centrePx(api: CustomSeriesRenderItemAPI, xMm: number, yMm: number): [nu
   return [x, y];
 }
 
+/** A canvas the die field paints into: an HTMLCanvasElement in the browser, a recording stand-in in tests. */
+export interface FieldCanvas {
+  width: number;
+  height: number;
+  getContext(kind: "2d"): (PaintContext & { setTransform(a: number, b: number, c: number, d: number, e: number, f: number): void }) | null;
+}
+export type CanvasFactory = () => FieldCanvas;
+
+const browserCanvas: CanvasFactory = () => document.createElement("canvas");
+
+/** Raster scale of the die field: the screen's pixel ratio, at least 2 so the PNG export (2×) stays sharp. */
+function rasterScale(): number {
+  const dpr = typeof window === "undefined" ? 1 : window.devicePixelRatio || 1;
+  return Math.max(2, dpr);
+}
+
 function plotRect(params: CustomSeriesRenderItemParams): RectPx | null {
   const { x, y, width, height } = params.coordSys as { x?: number; y?: number; width?: number; height?: number };
   return x === undefined || y === undefined || width === undefined || height === undefined ? null : { x, y, width, height };
 }
 
+/** The current mm → px mapping of the cartesian plane, read from two points of the render API. */
+function mmToPx(api: CustomSeriesRenderItemAPI): MmToPx {
+  const [x0, y0] = centrePx(api, 0, 0);
+  const [x1, y1] = centrePx(api, 1, 1);
+  return { originX: x0, originY: y0, pxPerMmX: x1 - x0, pxPerMmY: y0 - y1 };
+}
+
 /**
- * Draws one die: a filled rectangle (fills[dieIndex]) with a hairline gap to its neighbours; an inked die adds
- * a diagonal hatch in black or white, whichever contrasts with the fill; an out-of-window die adds a white dot
- * ringed in black at its centre. Both marks read in either colouring and in greyscale (§14). Dies are cut to
- * the plot rectangle here (and skipped outside it) because progressive rendering ignores the series clip.
+ * A die field: the dies listed in `indices`, painted by `paintDies` into an offscreen canvas the size of the plot
+ * and returned as one image element, so a zoom, a pan or a resize repaints a raster instead of re-laying
+ * thousands of chart elements. The canvas is reused while the view is unchanged. `onPaint` receives what each
+ * paint drew (the container exposes the ring count).
  */
-export function dieRenderer(dies: readonly MapDie[], layout: MapLayout, fills: readonly string[]): CustomSeriesRenderItem {
+export function dieFieldRenderer(
+  dies: readonly PaintedDie[],
+  layout: MapLayout,
+  fills: readonly string[],
+  indices: readonly number[],
+  onPaint: (counts: PaintCounts) => void,
+  createCanvas: CanvasFactory = browserCanvas,
+): CustomSeriesRenderItem {
+  let cache: { key: string; canvas: FieldCanvas } | null = null;
   return (params, api) => {
-    const dieIndex = Number(api.value(DIE_DIM.dieIndex));
-    const die = dies[dieIndex];
-    if (die === undefined) return null;
-    const [cx, cy] = centrePx(api, Number(api.value(DIE_DIM.xMm)), Number(api.value(DIE_DIM.yMm)));
-    const [w, h] = pixelSize(api, layout.dieWidthMm, layout.dieHeightMm);
-    const gap = Math.min(1, 0.08 * Math.min(w, h));
-    const full = { x: cx - w / 2 + gap / 2, y: cy - h / 2 + gap / 2, width: w - gap, height: h - gap };
     const plot = plotRect(params);
-    const shape = plot ? intersectRect(full, plot) : full;
-    if (shape === null) return null;
-    const fill = fills[dieIndex] ?? "#999999";
-    const rect: Element = { type: "rect", shape, style: { fill }, autoBatch: true };
-    if (!die.inked && !die.outOfWindow) return rect;
-    const children: Element[] = [rect];
-    if (die.inked) {
-      const stroke = contrastInk(fill);
-      const spacing = Math.max(2, Math.min(w, h) / 3.5);
-      for (const [x1, y1, x2, y2] of hatchSegments(shape.x, shape.y, shape.width, shape.height, spacing)) {
-        children.push({ type: "line", shape: { x1, y1, x2, y2 }, style: { stroke, lineWidth: 1 }, autoBatch: true });
-      }
+    if (plot === null || !(plot.width > 0 && plot.height > 0)) return null;
+    const view = mmToPx(api);
+    const scale = rasterScale();
+    const key = [plot.x, plot.y, plot.width, plot.height, view.originX, view.originY, view.pxPerMmX, view.pxPerMmY, scale].map((v) => v.toFixed(3)).join();
+    if (cache?.key !== key) {
+      const canvas = createCanvas();
+      canvas.width = Math.max(1, Math.ceil(plot.width * scale));
+      canvas.height = Math.max(1, Math.ceil(plot.height * scale));
+      const ctx = canvas.getContext("2d");
+      if (ctx === null) return null;
+      // chart px → canvas px: the canvas's top-left corner is the plot's
+      ctx.setTransform(scale, 0, 0, scale, -plot.x * scale, -plot.y * scale);
+      onPaint(paintDies(ctx, dies, layout, fills, indices, view, plot));
+      cache = { key, canvas };
     }
-    if (die.outOfWindow && (plot === null || containsPoint(plot, cx, cy))) {
-      const r = Math.max(1.5, 0.28 * Math.min(w, h));
-      children.push({ type: "circle", shape: { cx, cy, r }, style: { fill: "#ffffff", stroke: "#000000", lineWidth: Math.max(1, 0.3 * r) } });
-    }
-    return { type: "group", children };
+    return { type: "image", silent: true, style: { image: cache.canvas as unknown as HTMLCanvasElement, x: plot.x, y: plot.y, width: plot.width, height: plot.height } };
   };
 }
 

@@ -2,6 +2,7 @@ import type { CustomSeriesOption } from "echarts/charts";
 import type { CustomSeriesRenderItemAPI, CustomSeriesRenderItemParams, CustomSeriesRenderItemReturn } from "echarts";
 import type { MapDie } from "@/domain/wafer-map/map-die";
 import type { WaferMapOption } from "./wafer-map-options";
+import type { CanvasFactory, FieldCanvas } from "./wafer-map-render";
 
 /** A die with plausible §9 fields; override what a test needs. */
 export function testDie(x: number, y: number, overrides: Partial<MapDie> = {}): MapDie {
@@ -45,6 +46,63 @@ export function renderSeries(series: CustomSeriesOption, plot = PLOT): CustomSer
   const data = (series.data ?? []) as number[][];
   const params = { coordSys: { type: "cartesian2d", ...plot } } as unknown as CustomSeriesRenderItemParams;
   return data.map((item) => series.renderItem?.(params, fakeApi(item)));
+}
+
+/** What a die field painted, read back from the recording canvas: rectangles, hatch lines and rings, in chart px. */
+export interface Painted {
+  rects: { x: number; y: number; width: number; height: number; fill: string }[];
+  lines: { x1: number; y1: number; x2: number; y2: number; stroke: string }[];
+  rings: { cx: number; cy: number; r: number; fill: string; stroke: string }[];
+  /** The canvas size in px and the transform set before painting: [a, b, c, d, e, f]. */
+  canvas: { width: number; height: number; transform: number[] };
+}
+
+/**
+ * A canvas factory whose 2D context records the calls the die painter makes (fillRect, paths of moveTo/lineTo
+ * and arcs, fill and stroke with the styles current at the time); `painted` accumulates over every canvas made.
+ */
+export function recordingCanvas(): { factory: CanvasFactory; painted: Painted } {
+  const painted: Painted = { rects: [], lines: [], rings: [], canvas: { width: 0, height: 0, transform: [] } };
+  const factory: CanvasFactory = () => {
+    let segments: [number, number, number, number][] = [];
+    let arcs: { cx: number; cy: number; r: number; fill: string }[] = [];
+    let at: [number, number] = [0, 0];
+    const canvas: FieldCanvas = {
+      width: 0,
+      height: 0,
+      getContext: () => ctx,
+    };
+    const ctx = {
+      fillStyle: "" as unknown,
+      strokeStyle: "" as unknown,
+      lineWidth: 1,
+      setTransform: (...m: number[]) => {
+        painted.canvas = { width: canvas.width, height: canvas.height, transform: m };
+      },
+      fillRect: (x: number, y: number, width: number, height: number) => painted.rects.push({ x, y, width, height, fill: String(ctx.fillStyle) }),
+      beginPath: () => {
+        segments = [];
+        arcs = [];
+      },
+      moveTo: (x: number, y: number) => {
+        at = [x, y];
+      },
+      lineTo: (x: number, y: number) => {
+        segments.push([at[0], at[1], x, y]);
+        at = [x, y];
+      },
+      arc: (cx: number, cy: number, r: number) => arcs.push({ cx, cy, r, fill: "" }),
+      fill: () => {
+        for (const a of arcs) a.fill = String(ctx.fillStyle);
+      },
+      stroke: () => {
+        for (const [x1, y1, x2, y2] of segments) painted.lines.push({ x1, y1, x2, y2, stroke: String(ctx.strokeStyle) });
+        for (const a of arcs) painted.rings.push({ ...a, stroke: String(ctx.strokeStyle) });
+      },
+    };
+    return canvas;
+  };
+  return { factory, painted };
 }
 
 type Drawn = { type?: string; children?: Drawn[]; shape?: Record<string, unknown>; style?: Record<string, unknown> };

@@ -5,6 +5,7 @@ export { hatchSegments, type SegmentPx } from "./hatch";
 export { mapLayout, type DieRectMm, type MapLayout } from "./layout";
 export { containsPoint, intersectRect, type RectPx } from "./rect-px";
 export type { Bin, MapDie, MapGeometry } from "./map-die";
+export { dieHitTest, NO_PAINT, paintDies, type MmToPx, type PaintContext, type PaintCounts, type PaintedDie } from "./paint";
 export { findDie, nearestDie, stepDie, type MapDirection } from "./navigation";
 export {
   conductanceTitle,

@@ -27,20 +27,16 @@ const CHOICES: Record<string, DispositionAction[]> = {
 };
 const LABELS: Record<DispositionAction, string> = { hold: "Put on hold", release: "Release to the customer", scrap: "Scrap" };
 
-/** Hold, release or scrap a lot (§6) with a reason; an open excursion asks for an override reason before release. */
+type DispositionResult = Awaited<ReturnType<typeof setDispositionAction>>;
+
+/**
+ * Hold, release or scrap a lot (§6) with a reason; an open excursion asks for an override reason before release.
+ * The outcome message lives here, outside the form: a success changes the lot's status, and the form below is
+ * keyed by that status so it starts fresh (choices, reason) while the message stays on screen.
+ */
 export function DispositionPanel({ lot, status, releasedAt, openExcursions, history, canDispose }: DispositionPanelProps) {
+  const [state, setState] = useState<DispositionResult | null>(null);
   const choices = CHOICES[status] ?? [];
-  const [action, setAction] = useState<DispositionAction | "">(choices[0] ?? "");
-  const [state, setState] = useState<Awaited<ReturnType<typeof setDispositionAction>> | null>(null);
-  const [pending, startTransition] = useTransition();
-  // onSubmit rather than a form action: a refused release keeps what was typed (form actions reset the form).
-  const submit = (e: FormEvent<HTMLFormElement>) => {
-    e.preventDefault();
-    const form = new FormData(e.currentTarget);
-    startTransition(async () => setState(await setDispositionAction(form)));
-  };
-  const errors = state && !state.ok ? state.fieldErrors : undefined;
-  const needsOverride = action === "release" && openExcursions.length > 0;
   return (
     <div className="space-y-4 text-sm">
       <p>
@@ -53,23 +49,12 @@ export function DispositionPanel({ lot, status, releasedAt, openExcursions, hist
           <ul>{openExcursions.map((e) => <li key={e.id}><Link className="underline" href={`/excursions/${e.id}`}>{e.title}</Link></li>)}</ul>
         </div>
       ) : null}
-      {canDispose && choices.length > 0 ? (
-        <form onSubmit={submit} className="space-y-3" noValidate>
+      {canDispose ? (
+        <div className="space-y-3">
           <FormMessage result={state} />
           {state?.ok ? <p role="status" className="text-bin-pass">Lot is now {state.data.status}{state.data.notified ? `; ${state.data.notified} customer user(s) notified` : ""}.</p> : null}
-          <input type="hidden" name="lot" value={lot} />
-          <SelectField label="Disposition" name="action" value={action} onChange={(e) => setAction(e.target.value as DispositionAction)} errors={errors?.action}>
-            {choices.map((c) => <option key={c} value={c}>{LABELS[c]}</option>)}
-          </SelectField>
-          <TextField label="Reason" name="reason" errors={errors?.reason} />
-          {needsOverride ? <TextField label="Override reason (open excursion)" name="overrideReason" errors={errors?.overrideReason} hint="Why the lot may ship while its excursion is still open" /> : null}
-          {action === "release" ? (
-            <p className="rounded border border-caution/30 bg-caution-wash px-3 py-2 text-xs text-caution">
-              Releases follow the fab&apos;s own procedures and the customer&apos;s agreement; SPC signals support the quality system and never replace its disposition procedures. The customer&apos;s users are e-mailed a link to the lot report.
-            </p>
-          ) : null}
-          <Button type="submit" variant={action === "scrap" ? "danger" : "primary"} disabled={pending || !action}>{pending ? "Saving…" : action ? LABELS[action] : "Choose"}</Button>
-        </form>
+          {choices.length > 0 ? <DispositionForm key={status} lot={lot} choices={choices} hasOpenExcursions={openExcursions.length > 0} state={state} onResult={setState} /> : null}
+        </div>
       ) : null}
       {history.length > 0 ? (
         <ol className="space-y-1 border-t border-slate-line pt-3">
@@ -82,5 +67,42 @@ export function DispositionPanel({ lot, status, releasedAt, openExcursions, hist
         </ol>
       ) : null}
     </div>
+  );
+}
+
+interface DispositionFormProps {
+  lot: string;
+  choices: DispositionAction[];
+  hasOpenExcursions: boolean;
+  state: DispositionResult | null;
+  onResult: (result: DispositionResult) => void;
+}
+
+function DispositionForm({ lot, choices, hasOpenExcursions, state, onResult }: DispositionFormProps) {
+  const [action, setAction] = useState<DispositionAction | "">(choices[0] ?? "");
+  const [pending, startTransition] = useTransition();
+  // onSubmit rather than a form action: a refused release keeps what was typed (form actions reset the form).
+  const submit = (e: FormEvent<HTMLFormElement>) => {
+    e.preventDefault();
+    const form = new FormData(e.currentTarget);
+    startTransition(async () => onResult(await setDispositionAction(form)));
+  };
+  const errors = state && !state.ok ? state.fieldErrors : undefined;
+  const needsOverride = action === "release" && hasOpenExcursions;
+  return (
+    <form onSubmit={submit} className="space-y-3" noValidate>
+      <input type="hidden" name="lot" value={lot} />
+      <SelectField label="Disposition" name="action" value={action} onChange={(e) => setAction(e.target.value as DispositionAction)} errors={errors?.action}>
+        {choices.map((c) => <option key={c} value={c}>{LABELS[c]}</option>)}
+      </SelectField>
+      <TextField label="Reason" name="reason" errors={errors?.reason} />
+      {needsOverride ? <TextField label="Override reason (open excursion)" name="overrideReason" errors={errors?.overrideReason} hint="Why the lot may ship while its excursion is still open" /> : null}
+      {action === "release" ? (
+        <p className="rounded border border-caution/30 bg-caution-wash px-3 py-2 text-xs text-caution">
+          Releases follow the fab&apos;s own procedures and the customer&apos;s agreement; SPC signals support the quality system and never replace its disposition procedures. The customer&apos;s users are e-mailed a link to the lot report.
+        </p>
+      ) : null}
+      <Button type="submit" variant={action === "scrap" ? "danger" : "primary"} disabled={pending || !action}>{pending ? "Saving…" : action ? LABELS[action] : "Choose"}</Button>
+    </form>
   );
 }

@@ -72,7 +72,7 @@ export default async function LotPage({ params }: { params: Promise<{ lot: strin
       <div className="mb-5 grid gap-4 xl:grid-cols-[1fr_420px]">
         <JudgementPanel judgement={judgement} openExcursions={lot.openExcursions} />
         <Panel title="Disposition">
-          <DispositionPanel key={lot.status} lot={lot.lot} status={lot.status} releasedAt={lot.releasedAt} openExcursions={lot.openExcursions} history={history} canDispose={can(context.role, "lots.disposition")} />
+          <DispositionPanel lot={lot.lot} status={lot.status} releasedAt={lot.releasedAt} openExcursions={lot.openExcursions} history={history} canDispose={can(context.role, "lots.disposition")} />
         </Panel>
       </div>
       <TemperatureNote lotK={lot.chuckTemperatureK} referenceK={REFERENCE_CHUCK_K} model={product.deviceModel} unit={product.displayUnit} />
