@@ -22,6 +22,13 @@ export type LotFilters = z.infer<typeof lotFiltersSchema>;
 
 const flag = z.enum(["true", "false", "1", "0"]).transform((v) => v === "true" || v === "1");
 
+/** The §9 die fields a client may pick with `fields` (the sweep comes with include=sweep). */
+export const DIE_FIELD_NAMES = [
+  "wafer", "x", "y", "conductanceS", "offsetA", "r2", "pointsInWindow", "windowV", "nonlinearity", "modes", "bin",
+  "outOfWindow", "temperatureK", "inked", "nonlinearityWindowOnly", "reason", "site", "points",
+] as const;
+export type DieField = (typeof DIE_FIELD_NAMES)[number];
+
 export const dieFiltersSchema = z.object({
   wafer: z.coerce.number().int().min(1).max(25).optional(),
   bin: z.union([z.enum(BIN_NAMES), z.string().transform((v) => v.split(",")).pipe(z.array(z.enum(BIN_NAMES)))]).optional(),
@@ -29,6 +36,12 @@ export const dieFiltersSchema = z.object({
   x: z.coerce.number().int().optional(),
   y: z.coerce.number().int().optional(),
   include: z.enum(["sweep"]).optional(),
+  /** Only these §9 fields per die (wafer, x and y always come): a lot-wide map needs 4 of the 18. */
+  fields: z
+    .string()
+    .transform((v) => v.split(","))
+    .pipe(z.array(z.enum(DIE_FIELD_NAMES)).min(1))
+    .optional(),
   format: z.enum(["json", "csv"]).default("json"),
 });
 export type DieFilters = z.infer<typeof dieFiltersSchema>;
@@ -96,7 +109,4 @@ export interface DieRecord {
 }
 
 /** The §9 die fields, in the order CSV exports carry them. */
-export const DIE_CSV_COLUMNS = [
-  "wafer", "x", "y", "conductanceS", "offsetA", "r2", "pointsInWindow", "windowV", "nonlinearity", "modes", "bin",
-  "outOfWindow", "temperatureK", "inked", "nonlinearityWindowOnly", "reason", "site", "points",
-] as const;
+export const DIE_CSV_COLUMNS = DIE_FIELD_NAMES;

@@ -59,6 +59,22 @@ describe("probe lot ingest through the API and the worker (§4, §5, §9)", () =
     expect(pass.dies.every((d: { bin: string }) => d.bin === "HIGH")).toBe(true);
   });
 
+  it("returns only the asked-for die fields (wafer, x, y always), as JSON and CSV, and names an unknown field", async () => {
+    const tenant = await freshTenant("ingest-fields");
+    await ingestAndWait(tenant, fixture("good-small.csv"));
+    const full = await (await api(tenant, "analyst", "/api/v1/lots/TW2611-0147/dies")).json();
+    const slim = await (await api(tenant, "analyst", "/api/v1/lots/TW2611-0147/dies?fields=conductanceS,bin")).json();
+    expect(slim.count).toBe(6);
+    // the §9 order, whatever order they were asked in
+    for (const d of slim.dies) expect(Object.keys(d)).toEqual(["wafer", "x", "y", "conductanceS", "bin"]);
+    expect(slim.dies).toEqual(full.dies.map((d: Record<string, unknown>) => ({ wafer: d.wafer, x: d.x, y: d.y, conductanceS: d.conductanceS, bin: d.bin })));
+    const csv = await (await api(tenant, "analyst", "/api/v1/lots/TW2611-0147/dies?format=csv&fields=outOfWindow")).text();
+    expect(csv.split("\n")[0]).toBe("wafer,x,y,outOfWindow");
+    const bad = await api(tenant, "analyst", "/api/v1/lots/TW2611-0147/dies?fields=bin,voltage");
+    expect(bad.status).toBe(422);
+    expect(JSON.stringify((await bad.json()).error)).toContain("fields");
+  });
+
   it("reads CRLF with BOM, semicolons with scientific notation, and a die split over the file", async () => {
     const tenant = await freshTenant("ingest-variants");
     expect((await ingestAndWait(tenant, fixture("crlf-bom.csv"))).report?.dies).toBe(6);

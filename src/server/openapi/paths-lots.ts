@@ -36,7 +36,7 @@ export function registerLotPaths(registry: OpenAPIRegistry): void {
     operationId: "listDies",
     tags: ["Lots"],
     summary: "List a lot's dies",
-    description: "Every §5 field per die, ordered by wafer, row and column. Numbers are SI base units: conductanceS in S, offsetA in A, windowV in V, temperatureK in K.",
+    description: "Every §5 field per die, ordered by wafer, row and column; with `fields`, wafer, x, y and the named fields only. Numbers are SI base units: conductanceS in S, offsetA in A, windowV in V, temperatureK in K.",
     ...access("data.read"),
     request: { params: lotParam, query: dieFiltersQuery },
     responses: {

@@ -127,5 +127,6 @@ export const dieFiltersQuery = describeFields(dieFiltersSchema, {
   x: "Die column index",
   y: "Die row index",
   include: "`sweep` adds each die's raw I–V points (bias in V, current in A)",
+  fields: "Only these die fields, separated by commas (bin,conductanceS); wafer, x and y always come. For lot-wide maps: a tenth of the bytes",
   format: "`json` (default) or `csv`",
 });

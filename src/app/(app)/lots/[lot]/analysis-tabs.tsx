@@ -17,7 +17,8 @@ import { AnalysisZones } from "./analysis-zones";
 interface Props {
   lot: string;
   wafers: WaferSummary[];
-  dies: DieRecord[];
+  /** Every die of the lot, with at least these fields. */
+  dies: Pick<DieRecord, "wafer" | "x" | "y" | "bin" | "conductanceS">[];
   geometry: { dieWidthMm: number; dieHeightMm: number; waferDiameterMm: number; edgeExclusionMm: number };
   unit: ConductanceUnit;
 }
@@ -32,7 +33,7 @@ const TABS = [
 type TabId = (typeof TABS)[number]["id"];
 
 /** The lot's dies grouped by wafer (every wafer of the strip, in its order), bins parsed and radial zones assigned per wafer. */
-function groupByWafer(wafers: readonly WaferSummary[], dies: readonly DieRecord[], geometry: Props["geometry"]): AnalysisWafer[] {
+function groupByWafer(wafers: readonly WaferSummary[], dies: Props["dies"], geometry: Props["geometry"]): AnalysisWafer[] {
   const g = waferGeometry(geometry);
   const byWafer = new Map<number, { x: number; y: number; bin: Bin; conductanceS: number | null }[]>();
   for (const d of dies) {

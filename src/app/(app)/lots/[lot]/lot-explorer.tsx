@@ -1,19 +1,32 @@
 "use client";
 
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
-import { useCallback, useMemo, useRef } from "react";
+import { type ReactNode, useCallback, useMemo, useRef } from "react";
 import useSWR from "swr";
 import type { ChartImageApi } from "@/components/charts/chart-export";
 import { WaferMap } from "@/components/charts/wafer-map";
 import { Button } from "@/components/ui/button";
 import { conductanceUnit, type MapDie } from "@/domain/wafer-map";
 import { assignZones, waferGeometry } from "@/domain/yield";
+import { parseBin } from "@/domain/yield/lot-analysis";
 import { fetcher, keys } from "@/lib/fetcher";
 import { type ConductanceUnit, formatConductance, formatPercent } from "@/lib/format";
 import type { DieRecord, WaferSummary } from "@/lib/schemas/lots";
 import { AnalysisTabs } from "./analysis-tabs";
 import { DieDrawer } from "./die-drawer";
 import { DieTable, type ZonedDie } from "./die-table";
+
+/** The fields of every die of the lot the page loads at once: the thumbnails' bins and marks, and the analyses. */
+const LOT_MAP_FIELDS = "bin,conductanceS,outOfWindow,inked";
+type LotMapDie = Pick<DieRecord, "wafer" | "x" | "y" | "bin" | "conductanceS" | "outOfWindow" | "inked">;
+
+/** A thumbnail die: the fields it draws, the rest empty (a thumbnail has no tooltip). */
+function thumbnailDie(d: LotMapDie): MapDie {
+  return {
+    x: d.x, y: d.y, conductanceS: d.conductanceS, bin: (parseBin(d.bin) ?? "NODATA") as MapDie["bin"], outOfWindow: d.outOfWindow, inked: d.inked,
+    modes: null, nonlinearity: null, r2: null, pointsInWindow: 0, windowV: Number.NaN, temperatureK: Number.NaN,
+  };
+}
 
 interface Props {
   lot: string;
@@ -23,10 +36,12 @@ interface Props {
   /** The spec window spans the conductance colour scale, so colours mean the same on every wafer of the product. */
   spec: { lowS: number | null; highS: number | null };
   canInk: boolean;
+  /** Panels beside the selected wafer's map on wide screens, below it on narrow ones. */
+  aside?: ReactNode;
 }
 
 /** The lot page's hero: the wafer strip, the selected wafer's map, its die table and the die drawer; state in the URL. */
-export function LotExplorer({ lot, wafers, geometry, unit, spec, canInk }: Props) {
+export function LotExplorer({ lot, wafers, geometry, unit, spec, canInk, aside }: Props) {
   const router = useRouter();
   const pathname = usePathname();
   const params = useSearchParams();
@@ -48,22 +63,27 @@ export function LotExplorer({ lot, wafers, geometry, unit, spec, canInk }: Props
     [params, pathname, router],
   );
 
-  const { data, error, isLoading } = useSWR<{ dies: DieRecord[] }>(keys.dies(lot), fetcher);
-  const byWafer = useMemo(() => {
-    const map = new Map<number, ZonedDie[]>();
-    if (!data) return map;
-    const g = waferGeometry(geometry);
-    for (const w of wafers) {
-      const dies = data.dies.filter((d) => d.wafer === w.wafer);
-      map.set(w.wafer, dies.length ? assignZones(dies, g).map((d) => ({ ...d, zone: d.zone })) : []);
+  // The selected wafer with every §5 field, for its map, table and tooltips; the whole lot with the four fields the
+  // thumbnails and the analyses need (a 25 × 5,000-die lot in full would be some 45 MB of JSON).
+  const { data, error, isLoading } = useSWR<{ dies: DieRecord[] }>(keys.dies(lot, { wafer }), fetcher);
+  const { data: lotData, error: lotError } = useSWR<{ dies: LotMapDie[] }>(keys.dies(lot, { fields: LOT_MAP_FIELDS }), fetcher);
+  const thumbnails = useMemo(() => {
+    const map = new Map<number, MapDie[]>();
+    for (const d of lotData?.dies ?? []) {
+      const list = map.get(d.wafer) ?? [];
+      list.push(thumbnailDie(d));
+      map.set(d.wafer, list);
     }
     return map;
-  }, [data, wafers, geometry]);
+  }, [lotData]);
+  const current = useMemo((): ZonedDie[] => {
+    const dies = data?.dies.filter((d) => d.wafer === wafer) ?? [];
+    return dies.length ? assignZones(dies, waferGeometry(geometry)).map((d) => ({ ...d, zone: d.zone })) : [];
+  }, [data, wafer, geometry]);
   const mapUnit = conductanceUnit(unit === "uS" ? "µS" : unit);
-  const current = byWafer.get(wafer) ?? [];
   const summary = wafers.find((w) => w.wafer === wafer);
 
-  if (error) return <p role="alert" className="text-sm text-alert">The dies could not be loaded: {error.message}</p>;
+  if (error || lotError) return <p role="alert" className="text-sm text-alert">The dies could not be loaded: {(error ?? lotError).message}</p>;
   return (
     <div className="flex min-h-0 gap-0">
       <div className="min-w-0 flex-1 space-y-4">
@@ -77,8 +97,8 @@ export function LotExplorer({ lot, wafers, geometry, unit, spec, canInk }: Props
               className={`w-[104px] shrink-0 rounded border p-1 text-left focus:outline-none focus-visible:ring-2 focus-visible:ring-accent ${w.wafer === wafer ? "border-accent bg-accent/5" : "border-slate-line bg-slate-panel hover:border-ink-muted"}`}
             >
               <div className="h-[92px]">
-                {byWafer.get(w.wafer)?.length ? (
-                  <WaferMap dies={byWafer.get(w.wafer)! as MapDie[]} geometry={geometry} colourBy="bin" unit={mapUnit} size="small" ariaLabel={`Wafer ${w.wafer} thumbnail`} />
+                {thumbnails.get(w.wafer)?.length ? (
+                  <WaferMap dies={thumbnails.get(w.wafer)!} geometry={geometry} colourBy="bin" unit={mapUnit} size="small" ariaLabel={`Wafer ${w.wafer} thumbnail`} />
                 ) : (
                   <div className="h-full animate-pulse rounded bg-slate-wash" />
                 )}
@@ -88,7 +108,8 @@ export function LotExplorer({ lot, wafers, geometry, unit, spec, canInk }: Props
             </button>
           ))}
         </nav>
-        <section aria-label={`Wafer ${wafer}`} className="rounded-lg border border-slate-line bg-slate-panel p-4">
+        <div className="grid items-start gap-4 xl:grid-cols-[minmax(0,1fr)_380px]">
+        <section aria-label={`Wafer ${wafer}`} className="min-w-0 rounded-lg border border-slate-line bg-slate-panel p-4">
           <div className="mb-2 flex flex-wrap items-center justify-between gap-3">
             <div>
               <h2 className="text-lg font-semibold">Wafer {wafer}</h2>
@@ -125,10 +146,12 @@ export function LotExplorer({ lot, wafers, geometry, unit, spec, canInk }: Props
             )}
           </div>
         </section>
+        {aside ? <div className="space-y-4">{aside}</div> : null}
+        </div>
         <section aria-label="Die table" className="rounded-lg border border-slate-line bg-slate-panel p-4">
           <DieTable dies={current} unit={unit} selected={selected} onSelect={(d) => setParams({ die: `${d.x},${d.y}` })} />
         </section>
-        <AnalysisTabs lot={lot} wafers={wafers} dies={data?.dies ?? []} geometry={geometry} unit={unit} />
+        <AnalysisTabs lot={lot} wafers={wafers} dies={lotData?.dies ?? []} geometry={geometry} unit={unit} />
       </div>
       {selected ? <DieDrawer lot={lot} wafer={wafer} x={selected.x} y={selected.y} unit={unit} canInk={canInk} onClose={() => setParams({ die: null })} /> : null}
     </div>

@@ -52,6 +52,16 @@ export default async function LotPage({ params }: { params: Promise<{ lot: strin
     ["Station", lot.station ?? "—"],
     ["Probed", formatDateTime(lot.probedAt)],
   ];
+  // Process control and disposition sit beside the wafer map on wide screens (below it on narrow ones), so the
+  // map opens in the first screen: it is what the page is for.
+  const panels = (
+    <>
+      <JudgementPanel judgement={judgement} openExcursions={lot.openExcursions} />
+      <Panel title="Disposition">
+        <DispositionPanel lot={lot.lot} status={lot.status} releasedAt={lot.releasedAt} openExcursions={lot.openExcursions} history={history} canDispose={can(context.role, "lots.disposition")} />
+      </Panel>
+    </>
+  );
   return (
     <>
       <PageHeader eyebrow={`Lot · ${lot.customer ?? "internal"}`} title={lot.lot}>
@@ -69,18 +79,15 @@ export default async function LotPage({ params }: { params: Promise<{ lot: strin
           </div>
         ))}
       </dl>
-      <div className="mb-5 grid gap-4 xl:grid-cols-[1fr_420px]">
-        <JudgementPanel judgement={judgement} openExcursions={lot.openExcursions} />
-        <Panel title="Disposition">
-          <DispositionPanel lot={lot.lot} status={lot.status} releasedAt={lot.releasedAt} openExcursions={lot.openExcursions} history={history} canDispose={can(context.role, "lots.disposition")} />
-        </Panel>
-      </div>
       <TemperatureNote lotK={lot.chuckTemperatureK} referenceK={REFERENCE_CHUCK_K} model={product.deviceModel} unit={product.displayUnit} />
       {lot.wafers.length === 0 ? (
-        <p className="text-sm text-ink-soft">No wafers have been probed for this lot yet.</p>
+        <>
+          <p className="mb-5 text-sm text-ink-soft">No wafers have been probed for this lot yet.</p>
+          <div className="grid gap-4 xl:grid-cols-2">{panels}</div>
+        </>
       ) : (
         <Suspense fallback={<p className="text-sm text-ink-muted">Loading the wafers…</p>}>
-          <LotExplorer lot={lot.lot} wafers={lot.wafers} geometry={{ dieWidthMm: product.dieWidthMm, dieHeightMm: product.dieHeightMm, waferDiameterMm: product.waferDiameterMm, edgeExclusionMm: product.edgeExclusionMm }} unit={product.displayUnit} spec={{ lowS: product.specLowS, highS: product.specHighS }} canInk={can(context.role, "dies.ink") && lot.status !== "released" && lot.status !== "scrapped"} />
+          <LotExplorer lot={lot.lot} wafers={lot.wafers} geometry={{ dieWidthMm: product.dieWidthMm, dieHeightMm: product.dieHeightMm, waferDiameterMm: product.waferDiameterMm, edgeExclusionMm: product.edgeExclusionMm }} unit={product.displayUnit} spec={{ lowS: product.specLowS, highS: product.specHighS }} canInk={can(context.role, "dies.ink") && lot.status !== "released" && lot.status !== "scrapped"} aside={panels} />
         </Suspense>
       )}
     </>
