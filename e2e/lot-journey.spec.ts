@@ -101,6 +101,31 @@ describe("upload a lot, watch it finish, explore its wafer map (browser)", () =>
     await tip.waitFor({ state: "hidden" });
   });
 
+  it("exports the die table's rows as CSV with the §9 names, all of them or only those its filters leave", async () => {
+    const page = await (await browser.newContext({ viewport: { width: 1440, height: 900 }, acceptDownloads: true })).newPage();
+    await signIn(page, tenant.users.analyst!.email, TEST_PASSWORD);
+    await page.goto(`${appUrl}/lots/TW2611-0147?wafer=1`);
+    const table = page.getByRole("region", { name: "Die table" });
+    await table.getByText("3 dies", { exact: true }).waitFor();
+    const save = async () => {
+      const [download] = await Promise.all([page.waitForEvent("download"), table.getByRole("button", { name: "CSV of these dies" }).click()]);
+      expect(download.suggestedFilename()).toBe("TW2611-0147-W1-dies.csv");
+      const chunks: Buffer[] = [];
+      for await (const chunk of (await download.createReadStream())!) chunks.push(chunk as Buffer);
+      return Buffer.concat(chunks).toString("utf8");
+    };
+    // Unfiltered: byte for byte what the API's CSV export gives for the wafer.
+    expect(await save()).toBe(await (await api(tenant, "analyst", "/api/v1/lots/TW2611-0147/dies?wafer=1&format=csv")).text());
+
+    // Filter the table to column x = 1: dies (1, 0) and (1, 1) of the wafer's three.
+    await table.locator('[role="columnheader"][col-id="x"] .ag-header-cell-filter-button').click();
+    await page.locator(".ag-filter-body input").first().fill("1");
+    await table.getByText("2 of 3 dies match the filters").waitFor();
+    const filtered = await save();
+    expect(filtered.trim().split("\n")).toHaveLength(3);
+    expect(filtered).toBe(await (await api(tenant, "analyst", "/api/v1/lots/TW2611-0147/dies?wafer=1&x=1&format=csv")).text());
+  });
+
   it("answers another tenant's lot with the 404 page (threat: reading a competitor's lot by URL)", async () => {
     const other = await createTestTenant(pool, "e2e-lot-other");
     const page = await (await browser.newContext()).newPage();

@@ -1,8 +1,10 @@
 "use client";
 
 import type { ColDef, GridApi, RowClickedEvent } from "ag-grid-community";
-import { useEffect, useMemo, useRef } from "react";
+import { useEffect, useMemo, useRef, useState } from "react";
 import { DataGrid } from "@/components/grid/data-grid";
+import { Button } from "@/components/ui/button";
+import { dieCsv } from "@/lib/die-csv";
 import { type ConductanceUnit, conductanceIn, UNIT_LABEL } from "@/lib/format";
 import type { DieRecord } from "@/lib/schemas/lots";
 
@@ -10,9 +12,47 @@ export type ZonedDie = DieRecord & { zone: string };
 
 const dieId = (d: { wafer: number; x: number; y: number }) => `${d.wafer}:${d.x}:${d.y}`;
 
-/** The die table: sorting and filters per column (bin, G, out-of-window, zone, η); selection follows the map. */
-export function DieTable({ dies, unit, selected, onSelect }: { dies: ZonedDie[]; unit: ConductanceUnit; selected: { wafer: number; x: number; y: number } | null; onSelect: (d: ZonedDie) => void }) {
+/** Saves text as a file through a temporary object URL. */
+function download(text: string, fileName: string, type: string): void {
+  const url = URL.createObjectURL(new Blob([text], { type }));
+  const link = document.createElement("a");
+  link.href = url;
+  link.download = fileName;
+  document.body.appendChild(link);
+  link.click();
+  link.remove();
+  URL.revokeObjectURL(url);
+}
+
+/** Rows the filters leave, over every page. */
+function countFiltered(grid: GridApi<ZonedDie>): number {
+  let n = 0;
+  grid.forEachNodeAfterFilter(() => n++);
+  return n;
+}
+
+interface DieTableProps {
+  dies: ZonedDie[];
+  unit: ConductanceUnit;
+  selected: { wafer: number; x: number; y: number } | null;
+  onSelect: (d: ZonedDie) => void;
+  /** Name of the CSV the export saves, e.g. "TW2610-0035-W3-dies.csv". */
+  csvFileName: string;
+}
+
+/**
+ * The die table: sorting and filters per column (bin, G, out-of-window, zone, η); selection follows the map. The
+ * export saves the rows the filters leave, in the table's order, as CSV with the §9 names and SI values (the API's
+ * format=csv columns).
+ */
+export function DieTable({ dies, unit, selected, onSelect, csvFileName }: DieTableProps) {
   const api = useRef<GridApi<ZonedDie> | null>(null);
+  const [shown, setShown] = useState<number | null>(null);
+  const visibleRows = (): ZonedDie[] => {
+    const rows: ZonedDie[] = [];
+    api.current?.forEachNodeAfterFilterAndSort((node) => node.data && rows.push(node.data));
+    return rows;
+  };
   const columns = useMemo<ColDef<ZonedDie>[]>(
     () => [
       { field: "x", maxWidth: 80, filter: "agNumberColumnFilter" },
@@ -47,7 +87,13 @@ export function DieTable({ dies, unit, selected, onSelect }: { dies: ZonedDie[];
     }
   }, [selected]);
 
+  const count = shown ?? dies.length;
   return (
+    <div className="space-y-2">
+      <div className="flex items-center justify-between gap-3 text-sm">
+        <p className="tabular text-ink-soft" aria-live="polite">{count === dies.length ? `${dies.length} dies` : `${count} of ${dies.length} dies match the filters`}</p>
+        <Button variant="secondary" disabled={count === 0} onClick={() => download(dieCsv(visibleRows()), csvFileName, "text/csv")}>CSV of these dies</Button>
+      </div>
     <DataGrid<ZonedDie>
       label="Dies of the selected wafer"
       rows={dies}
@@ -56,9 +102,12 @@ export function DieTable({ dies, unit, selected, onSelect }: { dies: ZonedDie[];
       height={360}
       rowSelection={{ mode: "singleRow", checkboxes: false, enableClickSelection: true }}
       onGridReady={(e) => (api.current = e.api)}
+      onFilterChanged={(e) => setShown(countFiltered(e.api))}
+      onRowDataUpdated={(e) => setShown(countFiltered(e.api))}
       onRowClicked={(e: RowClickedEvent<ZonedDie>) => e.data && onSelect(e.data)}
       pagination
       paginationPageSize={100}
     />
+    </div>
   );
 }

@@ -149,7 +149,7 @@ export function LotExplorer({ lot, wafers, geometry, unit, spec, canInk, aside }
         {aside ? <div className="space-y-4">{aside}</div> : null}
         </div>
         <section aria-label="Die table" className="rounded-lg border border-slate-line bg-slate-panel p-4">
-          <DieTable dies={current} unit={unit} selected={selected} onSelect={(d) => setParams({ die: `${d.x},${d.y}` })} />
+          <DieTable dies={current} unit={unit} selected={selected} onSelect={(d) => setParams({ die: `${d.x},${d.y}` })} csvFileName={`${lot}-W${wafer}-dies.csv`} />
         </section>
         <AnalysisTabs lot={lot} wafers={wafers} dies={lotData?.dies ?? []} geometry={geometry} unit={unit} />
       </div>
