@@ -90,6 +90,31 @@ describe("probe lot ingest through the API and the worker (§4, §5, §9)", () =
     expect(dies[0].points).toBeGreaterThan(5);
   });
 
+  it("merges thousands of dies split over the file into the same results as the file with each die in one run", async () => {
+    // 3,000 dies of 8 points, every die's sweep in two halves: first halves of all dies, then second halves.
+    const header = "# lot: SPLIT-1\n# product: VD-NW40\n# chuck_temperature_k: 300\nwafer,die_x,die_y,bias_mv,current_na\n";
+    const dies = Array.from({ length: 3000 }, (_, i) => ({ x: i % 60, y: Math.floor(i / 60), g: 1.2e-6 + (i % 17) * 1e-8 }));
+    const biases = [-10, -7, -4, -1, 2, 5, 8, 11];
+    const row = (d: { x: number; y: number; g: number }, mv: number) => `1,${d.x},${d.y},${mv},${(d.g * mv * 1e-3 * 1e9).toFixed(6)}\n`;
+    const half = (part: number[]) => dies.map((d) => part.map((mv) => row(d, mv)).join("")).join("");
+    const split = header + half(biases.slice(0, 4)) + half(biases.slice(4));
+    const whole = header.replace("SPLIT-1", "SPLIT-2") + half(biases);
+    const tenant = await freshTenant("ingest-split-many");
+    const a = await ingestAndWait(tenant, split);
+    const b = await ingestAndWait(tenant, whole);
+    expect(a.status).toBe("done");
+    expect(a.report?.dies).toBe(3000);
+    expect(b.report?.dies).toBe(3000);
+    const merged = (await (await api(tenant, "analyst", "/api/v1/lots/SPLIT-1/dies")).json()).dies;
+    const single = (await (await api(tenant, "analyst", "/api/v1/lots/SPLIT-2/dies")).json()).dies;
+    expect(merged).toHaveLength(3000);
+    for (let i = 0; i < merged.length; i++) {
+      expect(merged[i].points).toBe(8);
+      expect(merged[i].conductanceS).toBeCloseTo(single[i].conductanceS, 15);
+      expect(merged[i].bin).toBe(single[i].bin);
+    }
+  });
+
   for (const [file, code, line] of [["non-numeric.csv", "bad_value", 9], ["wafer-out-of-range.csv", "wafer_range", 16], ["two-temperatures.csv", "mixed_temperature", 11]] as const) {
     it(`fails ${file} naming line ${line}, and writes nothing`, async () => {
       const tenant = await freshTenant(`ingest-${code}`);

@@ -41,8 +41,10 @@ describe("the ingest queue (FOR UPDATE SKIP LOCKED with leases)", () => {
     const id = await queueJob("dead-worker");
     const deadWorker: ClaimedJob = { tenantId: tenant.id, id, rawFileId: "", lotNumber: "Q", productCode: "Q", chuckTemperatureK: null, attempts: 1 };
     const next = await claimNextJob({ tenantId: tenant.id });
-    const { rows } = await pool.query("select attempts from ingest_jobs where id = $1", [id]);
-    expect(rows[0].attempts).toBe(2); // reclaimed once, by this claimer or by the suite's worker
+    // Reclaimed once, by this claimer or by the suite's worker (woken by the queued job, it may hold the row while
+    // this claim skips it; its claim then commits a moment later).
+    const attempts = async () => (await pool.query("select attempts from ingest_jobs where id = $1", [id])).rows[0].attempts;
+    await expect.poll(attempts, { timeout: 10_000 }).toBe(2);
     expect(await heartbeat(deadWorker, 0.5)).toBe(false); // the late worker can no longer renew or finish it
     if (next?.id === id) expect(await heartbeat(next, 0.5)).toBe(true);
   });
