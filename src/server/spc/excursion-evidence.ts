@@ -1,6 +1,7 @@
 import "server-only";
 import type { Kysely } from "kysely";
 import { limitSetInForce } from "../db/queries/limit-sets";
+import type { ConductanceUnit } from "@/lib/format";
 import type { Database } from "../db/schema";
 import { chartsUnder, type ProductCharts } from "./product-charts";
 
@@ -12,7 +13,7 @@ export async function getExcursionEvidence(tx: Kysely<Database>, excursionId: st
   const e = await tx
     .selectFrom("excursions as e")
     .innerJoin("products as p", (j) => j.onRef("p.tenant_id", "=", "e.tenant_id").onRef("p.id", "=", "e.product_id"))
-    .select(["e.limit_set_id", "p.id", "p.yield_floor", "p.spec_low_s", "p.spec_high_s"])
+    .select(["e.limit_set_id", "p.id", "p.yield_floor", "p.spec_low_s", "p.spec_high_s", "p.display_unit"])
     .where("e.id", "=", excursionId)
     .executeTakeFirst();
   if (!e) return null;
@@ -31,6 +32,6 @@ export async function getExcursionEvidence(tx: Kysely<Database>, excursionId: st
       ? await limitSetInForce(tx, e.id, last.probed_at)
       : null;
   if (!limitSet) return null;
-  const product = { id: e.id, yieldFloor: e.yield_floor, specLowS: e.spec_low_s, specHighS: e.spec_high_s };
+  const product = { id: e.id, yieldFloor: e.yield_floor, specLowS: e.spec_low_s, specHighS: e.spec_high_s, displayUnit: e.display_unit as ConductanceUnit };
   return chartsUnder(tx, product, limitSet, last ? { probedAt: last.probed_at, lotNumber: last.lot_number } : undefined);
 }

@@ -2,6 +2,7 @@ import "server-only";
 import type { Kysely } from "kysely";
 import type { ControlChartInput } from "@/components/charts/control-chart-options";
 import { type BaselineLimitValues, individualsChart } from "@/domain/spc";
+import { type ConductanceUnit, conductanceIn, UNIT_LABEL } from "@/lib/format";
 import type { Database } from "../db/schema";
 import { limitSetInForce, type LimitSetRow, supersededAt } from "../db/queries/limit-sets";
 import { judgeSeries, type MetricJudgement, type RuleHit } from "./chart-judgement";
@@ -9,11 +10,12 @@ import { type CapabilityResult, dieCapability } from "./die-capability";
 import { loadSeries } from "./series";
 
 const CHART_LOTS = 40;
-const MICRO = 1e6; // charts print G in µS
 const label = (hits: RuleHit[]) => hits.map((h) => `${h.rule}: ${h.description}`);
 
 export interface ProductCharts {
   version: number;
+  /** The unit the G charts print, the product's display unit: "µS", "S" or "G₀". */
+  conductanceUnit: string;
   lotCount: number;
   medianG: ControlChartInput;
   movingRange: ControlChartInput;
@@ -42,7 +44,7 @@ export async function getProductCharts(tx: Kysely<Database>, product: ChartProdu
   return limitSet ? chartsUnder(tx, product, limitSet) : null;
 }
 
-type ChartProduct = { id: string; yieldFloor: number | null; specLowS: number | null; specHighS: number | null };
+type ChartProduct = { id: string; yieldFloor: number | null; specLowS: number | null; specHighS: number | null; displayUnit: ConductanceUnit };
 
 /** The same charts under a given version, optionally ending at one lot (an excursion's evidence). */
 export async function chartsUnder(tx: Kysely<Database>, product: ChartProduct, limitSet: LimitSetRow, upTo?: { probedAt: Date; lotNumber: string }): Promise<ProductCharts> {
@@ -55,23 +57,27 @@ export async function chartsUnder(tx: Kysely<Database>, product: ChartProduct, l
     judged.waferYieldFraction.individuals.skipped && `Wafer yield: ${judged.waferYieldFraction.individuals.skipped}.`,
   ].filter((n): n is string => Boolean(n));
   if (series.length === CHART_LOTS) notes.push(`Showing the latest ${CHART_LOTS} lots; runs are counted from the first of them.`);
+  // G is charted in the product's own unit (VD-NW40 in G₀, AA-TF220 in µS), as everywhere else it is shown.
+  const scale = conductanceIn(1, product.displayUnit);
+  const unitLabel = UNIT_LABEL[product.displayUnit];
   const values = g.individuals.points.map((p) => p.value);
   const ind = limits.waferMedianConductanceS.individuals;
   const movingRange: ControlChartInput = {
-    points: values.length >= 2 ? individualsChart(values).movingRanges.map((mr, i) => ({ label: g.individuals.points[i + 1]!.lotNumber, value: mr * MICRO, violations: mr > ind.mrUcl ? ["Moving range beyond its upper limit."] : [] })) : [],
-    center: ind.mrBar * MICRO, ucl: ind.mrUcl * MICRO, lcl: ind.mrLcl * MICRO, sigma: 0, unitLabel: "µS",
+    points: values.length >= 2 ? individualsChart(values).movingRanges.map((mr, i) => ({ label: g.individuals.points[i + 1]!.lotNumber, value: mr * scale, violations: mr > ind.mrUcl ? ["Moving range beyond its upper limit."] : [] })) : [],
+    center: ind.mrBar * scale, ucl: ind.mrUcl * scale, lcl: ind.mrLcl * scale, sigma: 0, unitLabel,
   };
   const frozenLot = limits.waferMedianConductanceS.lotXbarS;
   const lotMeanG: ControlChartInput | null = g.lotMeans && frozenLot
     ? {
-        points: g.lotMeans.points.map((p) => ({ label: p.lotNumber, value: p.mean * MICRO, violations: label(p.hits) })),
-        center: frozenLot.center * MICRO, ucl: frozenLot.ucl * MICRO, lcl: frozenLot.lcl * MICRO, sigma: frozenLot.sigma * MICRO, unitLabel: "µS",
+        points: g.lotMeans.points.map((p) => ({ label: p.lotNumber, value: p.mean * scale, violations: label(p.hits) })),
+        center: frozenLot.center * scale, ucl: frozenLot.ucl * scale, lcl: frozenLot.lcl * scale, sigma: frozenLot.sigma * scale, unitLabel,
       }
     : null;
   return {
     version: limitSet.version,
+    conductanceUnit: unitLabel,
     lotCount: series.length,
-    medianG: individualsInput(g, MICRO, "µS"),
+    medianG: individualsInput(g, scale, unitLabel),
     movingRange,
     lotMeanG,
     yieldChart: individualsInput(judged.waferYieldFraction, 100, "%", product.yieldFloor),

@@ -42,7 +42,7 @@ export default async function ExcursionPage({ params }: { params: Promise<{ id: 
       </PageHeader>
       <div className="grid gap-6 xl:grid-cols-[1fr_360px]">
         <div className="space-y-6">
-          <Panel title={chart === evidence?.yieldChart ? "Evidence: wafer yield (%)" : "Evidence: wafer median G (µS)"}>
+          <Panel title={chart === evidence?.yieldChart ? "Evidence: wafer yield (%)" : `Evidence: wafer median G (${evidence?.conductanceUnit ?? ""})`}>
             {chart && evidence ? (
               <>
                 <ControlChart {...chart} ariaLabel={`Control chart for excursion ${e.number}`} height={340} />

@@ -43,11 +43,11 @@ export async function SpcSection({ productCode }: { productCode: string }) {
             <p className="text-xs text-ink-muted">
               {charts.lotCount} lots probed since version {charts.version} was frozen ({formatDateTime(inForce?.frozenAt)}), judged with {product.rules === "nelson" ? "Nelson rules 1–8" : "Western Electric rules 1–4"}. {charts.notes.join(" ")}
             </p>
-            <ChartTitle>Individuals · wafer median G (µS)</ChartTitle>
+            <ChartTitle>Individuals · wafer median G ({charts.conductanceUnit})</ChartTitle>
             <ControlChart {...charts.medianG} ariaLabel="Individuals chart of wafer median G" height={300} />
-            <ChartTitle>Moving range of wafer median G (µS), σ̂ = MR̄/d₂</ChartTitle>
+            <ChartTitle>Moving range of wafer median G ({charts.conductanceUnit}), σ̂ = MR̄/d₂</ChartTitle>
             <ControlChart {...charts.movingRange} ariaLabel="Moving range of wafer median G" height={200} />
-            {charts.lotMeanG ? <><ChartTitle>Lot X̄ · mean of wafer median G (µS), wafers as the subgroup</ChartTitle><ControlChart {...charts.lotMeanG} ariaLabel="Lot X̄ chart of wafer median G" height={240} /></> : null}
+            {charts.lotMeanG ? <><ChartTitle>Lot X̄ · mean of wafer median G ({charts.conductanceUnit}), wafers as the subgroup</ChartTitle><ControlChart {...charts.lotMeanG} ariaLabel="Lot X̄ chart of wafer median G" height={240} /></> : null}
             <ChartTitle>Wafer yield (%) against the yield floor</ChartTitle>
             <ControlChart {...charts.yieldChart} ariaLabel="Wafer yield against the yield floor" height={240} />
           </div>
