@@ -1,4 +1,5 @@
 import type { EChartsType } from "echarts/core";
+import { downloadUrl } from "@/lib/download";
 
 /** What a chart hands its parent once it is drawn (via `onReady`), e.g. for a "Download PNG" button. */
 export interface ChartImageApi {
@@ -13,13 +14,6 @@ export function chartImageApi(instance: EChartsType): ChartImageApi {
   const toPngDataUrl = () => instance.getDataURL({ type: "png", pixelRatio: 2, backgroundColor: "#ffffff" });
   return {
     toPngDataUrl,
-    downloadPng(fileName: string) {
-      const link = document.createElement("a");
-      link.href = toPngDataUrl();
-      link.download = fileName;
-      document.body.appendChild(link);
-      link.click();
-      link.remove();
-    },
+    downloadPng: (fileName: string) => downloadUrl(toPngDataUrl(), fileName),
   };
 }

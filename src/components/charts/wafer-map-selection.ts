@@ -2,6 +2,7 @@ import { graphic, type EChartsType } from "echarts/core";
 import type { DieRectMm } from "@/domain/wafer-map/layout";
 import type { RectPx } from "@/domain/wafer-map/rect-px";
 import { INK } from "./chart-theme";
+import { chartPixel } from "./field-pointer";
 
 /** Moves the selected-die outline; `null` hides it. */
 export interface SelectionOverlay {
@@ -9,8 +10,7 @@ export interface SelectionOverlay {
 }
 
 function pixel(instance: EChartsType, xMm: number, yMm: number): [number, number] {
-  const p = instance.convertToPixel({ gridIndex: 0 }, [xMm, yMm]);
-  return Array.isArray(p) ? [p[0] ?? 0, p[1] ?? 0] : [0, 0];
+  return chartPixel(instance, xMm, yMm) ?? [0, 0];
 }
 
 /**

@@ -8,7 +8,7 @@ export interface RectPx {
 
 /**
  * Intersection of two screen rectangles, or null when they do not overlap (touching edges count as no overlap).
- * The map clips dies to the plot itself because the chart library skips clipping when it draws progressively.
+ * The die painter cuts dies to the plot with it: the raster is the plot's size, and a die half off the plot is drawn half.
  */
 export function intersectRect(a: RectPx, b: RectPx): RectPx | null {
   const left = Math.max(a.x, b.x);

@@ -5,24 +5,13 @@ import { useEffect, useMemo, useRef, useState } from "react";
 import { DataGrid } from "@/components/grid/data-grid";
 import { Button } from "@/components/ui/button";
 import { dieCsv } from "@/lib/die-csv";
+import { downloadText } from "@/lib/download";
 import { type ConductanceUnit, conductanceIn, UNIT_LABEL } from "@/lib/format";
 import type { DieRecord } from "@/lib/schemas/lots";
 
 export type ZonedDie = DieRecord & { zone: string };
 
 const dieId = (d: { wafer: number; x: number; y: number }) => `${d.wafer}:${d.x}:${d.y}`;
-
-/** Saves text as a file through a temporary object URL. */
-function download(text: string, fileName: string, type: string): void {
-  const url = URL.createObjectURL(new Blob([text], { type }));
-  const link = document.createElement("a");
-  link.href = url;
-  link.download = fileName;
-  document.body.appendChild(link);
-  link.click();
-  link.remove();
-  URL.revokeObjectURL(url);
-}
 
 /** Rows the filters leave, over every page. */
 function countFiltered(grid: GridApi<ZonedDie>): number {
@@ -92,7 +81,7 @@ export function DieTable({ dies, unit, selected, onSelect, csvFileName }: DieTab
     <div className="space-y-2">
       <div className="flex items-center justify-between gap-3 text-sm">
         <p className="tabular text-ink-soft" aria-live="polite">{count === dies.length ? `${dies.length} dies` : `${count} of ${dies.length} dies match the filters`}</p>
-        <Button variant="secondary" disabled={count === 0} onClick={() => download(dieCsv(visibleRows()), csvFileName, "text/csv")}>CSV of these dies</Button>
+        <Button variant="secondary" disabled={count === 0} onClick={() => downloadText(dieCsv(visibleRows()), csvFileName, "text/csv")}>CSV of these dies</Button>
       </div>
     <DataGrid<ZonedDie>
       label="Dies of the selected wafer"

@@ -77,9 +77,9 @@ export function LotExplorer({ lot, wafers, geometry, unit, spec, canInk, aside }
     return map;
   }, [lotData]);
   const current = useMemo((): ZonedDie[] => {
-    const dies = data?.dies.filter((d) => d.wafer === wafer) ?? [];
+    const dies = data?.dies ?? []; // fetched for this wafer alone
     return dies.length ? assignZones(dies, waferGeometry(geometry)).map((d) => ({ ...d, zone: d.zone })) : [];
-  }, [data, wafer, geometry]);
+  }, [data, geometry]);
   const mapUnit = conductanceUnit(unit === "uS" ? "µS" : unit);
   const summary = wafers.find((w) => w.wafer === wafer);
 
