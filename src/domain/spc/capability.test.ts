@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { capability } from "./capability";
+import { capability, capabilityFromSummary } from "./capability";
 
 describe("capability, worked textbook example", () => {
   it("reproduces Montgomery's piston-ring Cp = 1.68 (Introduction to SQC, ch. 6; from memory)", () => {
@@ -79,5 +79,21 @@ describe("capability input checks", () => {
   it("refuses a negative or non-finite within σ", () => {
     expect(() => capability({ ...base, withinSigma: -1 })).toThrow(RangeError);
     expect(() => capability({ ...base, withinSigma: Number.NaN })).toThrow(RangeError);
+  });
+});
+
+describe("capabilityFromSummary", () => {
+  it("gives capability's indices from the count, mean and overall sd (9, 10, 11: μ = 10, s = 1)", () => {
+    const fromValues = capability({ values: [9, 10, 11], specLow: 8, specHigh: 13, withinSigma: 0.5 });
+    expect(capabilityFromSummary({ count: 3, mean: 10, overallSigma: 1, specLow: 8, specHigh: 13, withinSigma: 0.5 })).toEqual(fromValues);
+  });
+
+  it("refuses fewer than two values, a non-finite mean or sd, and the spec errors capability refuses", () => {
+    const base = { count: 3, mean: 10, overallSigma: 1, specLow: 7, specHigh: 13, withinSigma: 0.5 };
+    expect(() => capabilityFromSummary({ ...base, count: 1 })).toThrow(RangeError);
+    expect(() => capabilityFromSummary({ ...base, mean: Number.NaN })).toThrow(RangeError);
+    expect(() => capabilityFromSummary({ ...base, overallSigma: Number.POSITIVE_INFINITY })).toThrow(RangeError);
+    expect(() => capabilityFromSummary({ ...base, specLow: 14 })).toThrow(RangeError);
+    expect(() => capabilityFromSummary({ ...base, specLow: null, specHigh: null })).toThrow(RangeError);
   });
 });

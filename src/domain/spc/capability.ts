@@ -28,6 +28,25 @@ export function capability(input: CapabilityInput): Capability {
   const { values, specLow, specHigh, withinSigma } = input;
   if (values.length < 2) throw new RangeError(`capability needs at least 2 values, got ${values.length}`);
   assertFinite(values, "capability values");
+  return capabilityFromSummary({ count: values.length, mean: mean(values), overallSigma: sampleStandardDeviation(values), specLow, specHigh, withinSigma });
+}
+
+export interface CapabilitySummaryInput {
+  /** How many values the mean and the overall sd were taken over. */
+  readonly count: number;
+  readonly mean: number;
+  /** Overall sample sd of the values (n − 1 divisor). */
+  readonly overallSigma: number;
+  readonly specLow: number | null;
+  readonly specHigh: number | null;
+  readonly withinSigma: number;
+}
+
+/** The indices of `capability` from the values' count, mean and overall sample sd (e.g. database aggregates) instead of the values; the same RangeErrors, and one for a non-finite mean or overall sd. */
+export function capabilityFromSummary(input: CapabilitySummaryInput): Capability {
+  const { count, mean: mu, overallSigma, specLow, specHigh, withinSigma } = input;
+  if (!(count >= 2)) throw new RangeError(`capability needs at least 2 values, got ${count}`);
+  if (!Number.isFinite(mu) || !Number.isFinite(overallSigma) || overallSigma < 0) throw new RangeError(`capability mean and overall sd must be finite (sd ≥ 0), got ${mu} and ${overallSigma}`);
   if (specLow === null && specHigh === null) throw new RangeError("capability needs at least one spec limit");
   if ((specLow !== null && !Number.isFinite(specLow)) || (specHigh !== null && !Number.isFinite(specHigh))) {
     throw new RangeError("spec limits must be finite or null");
@@ -38,8 +57,6 @@ export function capability(input: CapabilityInput): Capability {
   if (!Number.isFinite(withinSigma) || withinSigma < 0) {
     throw new RangeError(`within sigma must be finite and ≥ 0, got ${withinSigma}`);
   }
-  const mu = mean(values);
-  const overallSigma = sampleStandardDeviation(values);
   const potential = (sigma: number) => (specLow !== null && specHigh !== null ? (specHigh - specLow) / (6 * sigma) : null);
   const centred = (sigma: number) => {
     const upper = specHigh === null ? Number.POSITIVE_INFINITY : (specHigh - mu) / (3 * sigma);

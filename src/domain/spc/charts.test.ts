@@ -1,6 +1,6 @@
-import { sampleStandardDeviation } from "simple-statistics";
+import { mean as referenceMean, sampleStandardDeviation } from "simple-statistics";
 import { describe, expect, it } from "vitest";
-import { individualsChart, xbarSChart, xbarSLimits, zoneBoundaries } from "./charts";
+import { individualsChart, xbarSChart, xbarSChartFromStats, xbarSLimits, zoneBoundaries } from "./charts";
 import { chartConstants } from "./constants";
 
 // Closed forms used as references (normal order statistics): d₂(2) = 2/√π, D₄(2) = 1 + (3/2)√(2π − 4),
@@ -134,5 +134,30 @@ describe("xbarSChart input checks", () => {
     expect(() => xbarSChart([])).toThrow(RangeError);
     expect(() => xbarSChart([[1, 2], [3]])).toThrow(RangeError);
     expect(() => xbarSChart([[1, Number.POSITIVE_INFINITY]])).toThrow(RangeError);
+  });
+});
+
+describe("xbarSChartFromStats", () => {
+  const summarise = (groups: number[][]) => groups.map((g) => ({ size: g.length, mean: referenceMean(g), s: sampleStandardDeviation(g) }));
+
+  it("gives the chart of xbarSChart from sizes, means and sds (means and sds from simple-statistics)", () => {
+    for (const groups of [[[1, 3], [2, 4, 6, 8]], [[1, 2, 3], [2, 3, 4], [0, 3, 6]]]) {
+      const fromValues = xbarSChart(groups);
+      const fromStats = xbarSChartFromStats(summarise(groups));
+      expect(fromStats.pooled).toBe(fromValues.pooled);
+      for (const key of ["center", "sBar", "withinSigma"] as const) expect(fromStats[key]).toBeCloseTo(fromValues[key], 13);
+      fromStats.points.forEach((p, i) => {
+        expect(p.ucl).toBeCloseTo(fromValues.points[i]!.ucl, 13);
+        expect(p.zScore).toBeCloseTo(fromValues.points[i]!.zScore, 12);
+      });
+    }
+  });
+
+  it("refuses no subgroups, a size below 2 or a non-integer size, and a non-finite or negative sd", () => {
+    expect(() => xbarSChartFromStats([])).toThrow(RangeError);
+    expect(() => xbarSChartFromStats([{ size: 1, mean: 1, s: 0 }])).toThrow(RangeError);
+    expect(() => xbarSChartFromStats([{ size: 2.5, mean: 1, s: 0 }])).toThrow(RangeError);
+    expect(() => xbarSChartFromStats([{ size: 2, mean: 1, s: Number.NaN }])).toThrow(RangeError);
+    expect(() => xbarSChartFromStats([{ size: 2, mean: 1, s: -1 }])).toThrow(RangeError);
   });
 });

@@ -103,7 +103,23 @@ export function xbarSChart(subgroups: readonly (readonly number[])[]): XbarSChar
     if (subgroup.length < 2) throw new RangeError(`every X̄–S subgroup needs at least 2 values, got ${subgroup.length}`);
     assertFinite(subgroup, "chart values");
   }
-  const stats = subgroups.map((subgroup) => ({ size: subgroup.length, mean: mean(subgroup), s: sampleStandardDeviation(subgroup) }));
+  return xbarSChartFromStats(subgroups.map((subgroup) => ({ size: subgroup.length, mean: mean(subgroup), s: sampleStandardDeviation(subgroup) })));
+}
+
+/** A subgroup reduced to its size, mean and sample sd (n − 1 divisor), e.g. as a database aggregate returns it. */
+export interface SubgroupStats {
+  readonly size: number;
+  readonly mean: number;
+  readonly s: number;
+}
+
+/** The X̄–S chart of `xbarSChart` from each subgroup's size, mean and sd instead of its values (same formulas); RangeError for no subgroups, a size that is not an integer ≥ 2, or a non-finite mean or sd. */
+export function xbarSChartFromStats(stats: readonly SubgroupStats[]): XbarSChart {
+  if (stats.length === 0) throw new RangeError("an X̄–S chart needs at least one subgroup");
+  for (const stat of stats) {
+    if (!Number.isInteger(stat.size) || stat.size < 2) throw new RangeError(`every X̄–S subgroup needs at least 2 values, got ${stat.size}`);
+    if (!Number.isFinite(stat.mean) || !Number.isFinite(stat.s) || stat.s < 0) throw new RangeError(`subgroup mean and sd must be finite (sd ≥ 0), got ${stat.mean} and ${stat.s}`);
+  }
   const totalSize = stats.reduce((sum, stat) => sum + stat.size, 0);
   const center = stats.reduce((sum, stat) => sum + stat.size * stat.mean, 0) / totalSize;
   const firstSize = stats[0]?.size ?? 0;
@@ -116,7 +132,7 @@ export function xbarSChart(subgroups: readonly (readonly number[])[]): XbarSChar
   const points = stats.map((stat) => {
     const limits = xbarSLimits(center, sBar, stat.size);
     const zScore = (stat.mean - center) / limits.sigma;
-    return { ...stat, ...limits, zScore, zones: zoneBoundaries(center, limits.sigma) };
+    return { size: stat.size, mean: stat.mean, s: stat.s, ...limits, zScore, zones: zoneBoundaries(center, limits.sigma) };
   });
   return { center, sBar, withinSigma, pooled, points };
 }

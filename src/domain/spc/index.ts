@@ -1,15 +1,17 @@
 // Public API of the SPC module: chart constants, robust statistics, die windows, control charts,
 // baseline limit sets, run rules and capability indices.
 
-export { type CapabilityInput, type Capability, capability } from "./capability";
+export { type CapabilityInput, type CapabilitySummaryInput, type Capability, capability, capabilityFromSummary } from "./capability";
 export {
   type IndividualsChart,
   type XbarSChart,
   type XbarSLimits,
   type XbarSPoint,
+  type SubgroupStats,
   type ZoneBoundaries,
   individualsChart,
   xbarSChart,
+  xbarSChartFromStats,
   xbarSLimits,
   zoneBoundaries,
 } from "./charts";
@@ -45,4 +47,5 @@ export {
   westernElectricRule3,
   westernElectricRule4,
 } from "./rules";
+export { type GroupSummary, combineGroupSummaries } from "./sample-stats";
 export { normalCdf, normalQuantile } from "./special-functions";

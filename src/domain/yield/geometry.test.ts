@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { assignZones, dieCentreMm, dieRadiusMm, gridCentre, radialZone, waferGeometry } from "./geometry";
+import { assignZones, dieCentreMm, dieRadiusMm, gridCentre, radialZone, radialZoneBounds, waferGeometry } from "./geometry";
 
 // Worked example used throughout: 5 × 5 mm dies on a 100 mm wafer with 5 mm edge exclusion.
 // R = 100/2 − 5 = 45 mm; centre bound R/√3 = 25.981 mm; middle bound R·√(2/3) = 36.742 mm.
@@ -61,6 +61,10 @@ describe("radialZone", () => {
     expect(radialZone(centreBound * (1 + 1e-12), square)).toBe("middle");
     expect(radialZone(middleBound, square)).toBe("middle");
     expect(radialZone(middleBound * (1 + 1e-12), square)).toBe("edge");
+  });
+
+  it("states the bounds it uses: R/√3, R·√(2/3), R", () => {
+    expect(radialZoneBounds(square)).toEqual({ centre: 45 / Math.sqrt(3), middle: 45 * Math.sqrt(2 / 3), edge: 45 });
   });
 
   it("keeps a die centre exactly on the usable radius in the edge zone and puts one beyond it outside", () => {

@@ -85,16 +85,22 @@ export function dieRadiusMm(x: number, y: number, centre: GridCentre, geometry: 
   return Math.hypot(xMm, yMm);
 }
 
+/** Outer radii (mm, inclusive) of the centre, middle and edge zones: equal-area thirds of the usable disc (common practice), R/√3, R·√(2/3) and R. */
+export function radialZoneBounds(geometry: WaferGeometry): { readonly centre: number; readonly middle: number; readonly edge: number } {
+  const r = geometry.usableRadiusMm;
+  return { centre: r / Math.sqrt(3), middle: r * Math.sqrt(2 / 3), edge: r };
+}
+
 /**
- * Zone of a die-centre radius (mm) in equal-area thirds of the usable disc (common practice):
+ * Zone of a die-centre radius (mm) in equal-area thirds of the usable disc (radialZoneBounds):
  * r ≤ R/√3 centre, r ≤ R·√(2/3) middle, r ≤ R edge, beyond R outside; bounds inclusive. RangeError on negative or NaN radius.
  */
 export function radialZone(radiusMm: number, geometry: WaferGeometry): RadialZone {
   if (Number.isNaN(radiusMm) || radiusMm < 0) throw new RangeError(`radius must be zero or positive, got ${radiusMm}`);
-  const r = geometry.usableRadiusMm;
-  if (radiusMm <= r / Math.sqrt(3)) return "centre";
-  if (radiusMm <= r * Math.sqrt(2 / 3)) return "middle";
-  if (radiusMm <= r) return "edge";
+  const bounds = radialZoneBounds(geometry);
+  if (radiusMm <= bounds.centre) return "centre";
+  if (radiusMm <= bounds.middle) return "middle";
+  if (radiusMm <= bounds.edge) return "edge";
   return "outside";
 }
 

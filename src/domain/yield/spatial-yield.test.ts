@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { assignZones, waferGeometry, type RadialZone } from "./geometry";
-import { edgeVersusCentre, stackedFailMap, zoneYields } from "./spatial-yield";
+import { edgeVersusCentre, stackedFailMap, zoneYields, zoneYieldsFromCounts } from "./spatial-yield";
 import type { Bin } from "./yield";
 
 function dies(zone: RadialZone, pass: number, fail: number, failBin: Bin = "LOW") {
@@ -89,5 +89,19 @@ describe("stackedFailMap", () => {
       { x: 3, y: 4, bin: "LOW" as Bin },
     ];
     expect(() => stackedFailMap([wafer])).toThrow(RangeError);
+  });
+});
+
+describe("zoneYieldsFromCounts", () => {
+  it("gives what zoneYields gives for the same dies", () => {
+    const zoned = [...dies("centre", 9, 1), ...dies("middle", 6, 2), ...dies("edge", 3, 9, "NODATA")];
+    const counts = { centre: { tested: 10, pass: 9 }, middle: { tested: 8, pass: 6 }, edge: { tested: 12, pass: 3 }, outside: { tested: 0, pass: 0 } };
+    expect(zoneYieldsFromCounts(counts)).toEqual(zoneYields(zoned));
+  });
+
+  it("refuses more PASS than tested and negative counts", () => {
+    const empty = { tested: 0, pass: 0 };
+    expect(() => zoneYieldsFromCounts({ centre: { tested: 1, pass: 2 }, middle: empty, edge: empty, outside: empty })).toThrow(RangeError);
+    expect(() => zoneYieldsFromCounts({ centre: { tested: -1, pass: 0 }, middle: empty, edge: empty, outside: empty })).toThrow(RangeError);
   });
 });

@@ -41,8 +41,14 @@ export function zoneYields(dies: readonly { readonly zone: RadialZone; readonly 
     entry.tested++;
     if (bin === "PASS") entry.pass++;
   }
+  return zoneYieldsFromCounts(Object.fromEntries(tally) as Record<RadialZone, { tested: number; pass: number }>);
+}
+
+/** zoneYields from counts already made per zone (e.g. by the database); RangeError on a negative count or more PASS than tested. */
+export function zoneYieldsFromCounts(counts: Readonly<Record<RadialZone, { readonly tested: number; readonly pass: number }>>): Record<RadialZone, ZoneYield> {
   const result = (zone: RadialZone): ZoneYield => {
-    const { tested, pass } = tally.get(zone) ?? { tested: 0, pass: 0 };
+    const { tested, pass } = counts[zone];
+    if (!(tested >= 0) || !(pass >= 0) || pass > tested) throw new RangeError(`zone ${zone}: ${pass} PASS of ${tested} tested`);
     return { tested, pass, yield: tested === 0 ? null : pass / tested };
   };
   return { centre: result("centre"), middle: result("middle"), edge: result("edge"), outside: result("outside") };
