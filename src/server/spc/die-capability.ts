@@ -55,7 +55,7 @@ export async function dieCapability(tx: Kysely<Database>, lotIds: string[], spec
     capability: {
       cp: c.cp, cpk: c.cpk, pp: c.pp, ppk: c.ppk, meanS: c.mean, withinSigmaS: c.withinSigma, overallSigmaS: c.overallSigma,
       dies: all.size, wafers: subgroups.length,
-      sigmaNote: `Cp, Cpk use σ within = ${within}; Pp, Ppk use the overall sample σ of ${all.size} dies.`,
+      sigmaNote: `Cp, Cpk use σ within = ${within}; Pp, Ppk use the overall sample σ of ${all.size.toLocaleString("en")} dies.`,
     },
   };
 }

@@ -1,8 +1,7 @@
 import type { ReactNode } from "react";
 import { ControlChart } from "@/components/charts/control-chart";
 import { EmptyState, Panel } from "@/components/ui/page-header";
-import { formatSi } from "@/domain/transport/format-si";
-import { formatDateTime } from "@/lib/format";
+import { formatConductance, formatDateTime } from "@/lib/format";
 import { can } from "@/lib/permissions";
 import { requireContext } from "@/server/auth/context";
 import { listLimitSets } from "@/server/db/queries/limit-sets";
@@ -35,6 +34,8 @@ export async function SpcSection({ productCode }: { productCode: string }) {
   const canFreeze = can(context.role, "limits.freeze");
   const watching = watchers.some((w) => w.userId === context.user?.id);
   const cap = charts?.capability;
+  // Conductances in the product's own unit, as its charts and the rest of the product show them.
+  const g = (valueS: number | null | undefined) => formatConductance(valueS, product.displayUnit);
   return (
     <div className="space-y-6">
       <Panel title={charts ? `Control charts · limits version ${charts.version}` : "Control charts"}>
@@ -62,10 +63,10 @@ export async function SpcSection({ productCode }: { productCode: string }) {
               <tbody>
                 <tr><th className="pr-4 text-left font-normal text-ink-muted">Cp</th><td className="pr-8">{fixed(cap.capability.cp)}</td><th className="pr-4 text-left font-normal text-ink-muted">Pp</th><td>{fixed(cap.capability.pp)}</td></tr>
                 <tr><th className="pr-4 text-left font-normal text-ink-muted">Cpk</th><td className="pr-8">{fixed(cap.capability.cpk)}</td><th className="pr-4 text-left font-normal text-ink-muted">Ppk</th><td>{fixed(cap.capability.ppk)}</td></tr>
-                <tr><th className="pr-4 text-left font-normal text-ink-muted">σ within</th><td className="pr-8">{formatSi(cap.capability.withinSigmaS, "S")}</td><th className="pr-4 text-left font-normal text-ink-muted">σ overall</th><td>{formatSi(cap.capability.overallSigmaS, "S")}</td></tr>
+                <tr><th className="pr-4 text-left font-normal text-ink-muted">σ within</th><td className="pr-8">{g(cap.capability.withinSigmaS)}</td><th className="pr-4 text-left font-normal text-ink-muted">σ overall</th><td>{g(cap.capability.overallSigmaS)}</td></tr>
               </tbody>
             </table>
-            <p className="mt-2 text-xs text-ink-muted">{cap.capability.sigmaNote} Spec {product.specLowS !== null ? formatSi(product.specLowS, "S") : "—"} to {product.specHighS !== null ? formatSi(product.specHighS, "S") : "—"}, mean {formatSi(cap.capability.meanS, "S")}.</p>
+            <p className="mt-2 text-xs text-ink-muted">{cap.capability.sigmaNote} Spec {g(product.specLowS)} to {g(product.specHighS)}, mean {g(cap.capability.meanS)}.</p>
           </>
         ) : (
           <EmptyState>No capability yet: {cap?.reason ?? "no limits are frozen"}.</EmptyState>
@@ -79,17 +80,17 @@ export async function SpcSection({ productCode }: { productCode: string }) {
             </thead>
             <tbody className="divide-y divide-slate-line">
               {versions.map((v, i) => {
-                const g = v.limits.waferMedianConductanceS.individuals;
+                const limits = v.limits.waferMedianConductanceS.individuals;
                 return (
                   <tr key={v.version} className="align-top">
                     <td className="py-2 font-medium">{v.version}{i === 0 ? <span className="ml-1 text-xs font-normal text-bin-pass">in force</span> : null}</td>
                     <td>{formatDateTime(v.frozenAt)}</td>
                     <td>{v.frozenBy}</td>
                     <td title={v.lots.join(", ")}>{v.baseline.kind === "dates" ? `${v.baseline.from?.slice(0, 10)} – ${v.baseline.to?.slice(0, 10)}` : "chosen lots"} · {v.lotCount} lots, {v.waferCount} wafers</td>
-                    <td>{formatSi(g.center, "S")}</td>
-                    <td>{formatSi(g.sigma, "S")}</td>
-                    <td>{formatSi(g.ucl, "S")} / {formatSi(g.lcl, "S")}</td>
-                    <td>{v.dieWindow ? `${formatSi(v.dieWindow.lowS, "S")} – ${formatSi(v.dieWindow.highS, "S")}` : "—"}</td>
+                    <td>{g(limits.center)}</td>
+                    <td>{g(limits.sigma)}</td>
+                    <td>{g(limits.ucl)} / {g(limits.lcl)}</td>
+                    <td>{v.dieWindow ? `${g(v.dieWindow.lowS)} – ${g(v.dieWindow.highS)}` : "—"}</td>
                   </tr>
                 );
               })}
