@@ -23,8 +23,8 @@ export type CapabilityResult = { capability: CapabilityView; reason: null } | { 
 /**
  * Die-level Cp, Cpk, Pp, Ppk against the spec window (§6) over the parametric dies of the given lots: σ within from
  * the X̄–S chart with each wafer a subgroup (s̄/c₄), σ overall the sample sd of every die. PostgreSQL reduces each
- * wafer to its count, mean and sd, so memory stays flat however many dies the lots hold (loading the values took
- * some 300 MB of the app's memory for a lot of 500,000 dies); the overall figures are combined from those.
+ * wafer to its count, mean and sd, so memory stays flat however many dies the lots hold (see edgeChecks for what
+ * loading the dies cost); the overall figures are combined from those.
  */
 export async function dieCapability(tx: Kysely<Database>, lotIds: string[], spec: { specLowS: number | null; specHighS: number | null }): Promise<CapabilityResult> {
   if (spec.specLowS === null && spec.specHighS === null) return { capability: null, reason: "the product has no spec window" };
@@ -45,8 +45,8 @@ export async function dieCapability(tx: Kysely<Database>, lotIds: string[], spec
     .orderBy("wafer_slot")
     .execute();
   const subgroups: SubgroupStats[] = rows.map((r) => ({ size: r.size, mean: r.mean, s: r.s }));
+  if (subgroups.length === 0) return { capability: null, reason: "fewer than 2 measured dies on any wafer" };
   const all = combineGroupSummaries(subgroups);
-  if (subgroups.length === 0 || all.size < 2) return { capability: null, reason: "fewer than 2 measured dies on any wafer" };
   const chart = xbarSChartFromStats(subgroups);
   const c = capabilityFromSummary({ count: all.size, mean: all.mean, overallSigma: all.s, specLow: spec.specLowS, specHigh: spec.specHighS, withinSigma: chart.withinSigma });
   const within = chart.pooled ? `pooled s/c₄ within wafers over ${subgroups.length} wafers` : `s̄/c₄ within wafers over ${subgroups.length} wafers`;

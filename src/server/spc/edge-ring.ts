@@ -1,6 +1,6 @@
 import "server-only";
 import { type Kysely, sql } from "kysely";
-import { edgeVersusCentre, radialZoneBounds, waferGeometry, type WaferGeometryInput, zoneYieldsFromCounts } from "@/domain/yield";
+import { edgeVersusCentre, type RadialZone, radialZoneBounds, waferGeometry, type WaferGeometryInput, zoneYieldsFromCounts } from "@/domain/yield";
 import type { Database } from "../db/schema";
 
 // An edge ring: the edge zone yields far below the centre (§6). Thresholds (common practice): a gap of at least
@@ -17,42 +17,43 @@ export interface EdgeCheck {
   ring: boolean;
 }
 
-interface ZoneCountRow {
-  wafer_slot: number;
-  centre_tested: number; centre_pass: number; middle_tested: number; middle_pass: number;
-  edge_tested: number; edge_pass: number; outside_tested: number; outside_pass: number;
-}
-
 /**
- * Per wafer of the lot: centre and edge zone yields and the ring verdict. PostgreSQL counts each wafer's dies per
- * radial zone with the domain's rules (centre of the probed extents as in gridCentre, die-centre radius in mm as in
- * dieRadiusMm, the equal-area bounds of radialZoneBounds, inclusive), so no die row reaches the app: reading the
- * 500,000 dies of a large lot cost about 3 s of app CPU and 100 MB of its memory. One pass with window functions
- * for each wafer's extents, no join: right after an ingest the new dies have no statistics yet, and the join of the dies
- * with their wafers' extents planned on that ran for over a minute in bench:ingest.
+ * Per wafer of the lot: centre and edge zone yields and the ring verdict. PostgreSQL places each die in its radial
+ * zone with the domain's rules (centre of the probed extents as in gridCentre, die-centre radius in mm as in
+ * dieRadiusMm, the inclusive bounds of radialZoneBounds as in radialZone) and counts tested and PASS dies per wafer
+ * and zone, so no die row reaches the app: judging a 500,000-die lot from its dies in the app (this check and the
+ * capability) took about 3 s of app CPU and raised its RSS by up to 300 MB. One pass with window functions for each
+ * wafer's extents, no join: right after an ingest the new dies have no statistics yet, and the join of the dies with
+ * their wafers' extents planned on that ran for over a minute in bench:ingest.
  */
 export async function edgeChecks(tx: Kysely<Database>, lotId: string, geometryInput: WaferGeometryInput): Promise<EdgeCheck[]> {
   const geometry = waferGeometry(geometryInput);
   const bounds = radialZoneBounds(geometry);
-  const zone = (lower: number | null, upper: number | null) =>
-    sql`${lower === null ? sql`true` : sql`r > ${lower}::float8`} and ${upper === null ? sql`true` : sql`r <= ${upper}::float8`}`;
-  const counts = (name: string, lower: number | null, upper: number | null) =>
-    sql`count(*) filter (where ${zone(lower, upper)})::int as ${sql.raw(`${name}_tested`)}, count(*) filter (where ${zone(lower, upper)} and bin = 'PASS')::int as ${sql.raw(`${name}_pass`)}`;
-  const { rows } = await sql<ZoneCountRow>`
+  const { rows } = await sql<{ wafer_slot: number; zone: RadialZone; tested: number; pass: number }>`
     with placed as (
       select wafer_slot, bin,
              sqrt(((x - (min(x) over w + max(x) over w)::float8 / 2) * ${geometry.dieWidthMm}::float8) ^ 2
                 + ((y - (min(y) over w + max(y) over w)::float8 / 2) * ${geometry.dieHeightMm}::float8) ^ 2) as r
         from dies where lot_id = ${lotId} window w as (partition by wafer_slot)
     )
-    select wafer_slot, ${counts("centre", null, bounds.centre)}, ${counts("middle", bounds.centre, bounds.middle)},
-           ${counts("edge", bounds.middle, bounds.edge)}, ${counts("outside", bounds.edge, null)}
-      from placed group by wafer_slot order by wafer_slot`.execute(tx);
-  return rows.map((row) => {
-    const tally = (name: "centre" | "middle" | "edge" | "outside") => ({ tested: row[`${name}_tested`], pass: row[`${name}_pass`] });
-    const zones = zoneYieldsFromCounts({ centre: tally("centre"), middle: tally("middle"), edge: tally("edge"), outside: tally("outside") });
+    select wafer_slot,
+           case when r <= ${bounds.centre}::float8 then 'centre' when r <= ${bounds.middle}::float8 then 'middle'
+                when r <= ${bounds.edge}::float8 then 'edge' else 'outside' end as zone,
+           count(*)::int as tested, count(*) filter (where bin = 'PASS')::int as pass
+      from placed group by 1, 2 order by 1`.execute(tx);
+  const byWafer = new Map<number, Record<RadialZone, { tested: number; pass: number }>>();
+  for (const row of rows) {
+    let counts = byWafer.get(row.wafer_slot);
+    if (!counts) {
+      counts = { centre: { tested: 0, pass: 0 }, middle: { tested: 0, pass: 0 }, edge: { tested: 0, pass: 0 }, outside: { tested: 0, pass: 0 } };
+      byWafer.set(row.wafer_slot, counts);
+    }
+    counts[row.zone] = { tested: row.tested, pass: row.pass };
+  }
+  return [...byWafer].map(([wafer, counts]) => {
+    const zones = zoneYieldsFromCounts(counts);
     const { edgeYield, centreYield, gap } = edgeVersusCentre(zones);
     const ring = gap !== null && gap >= EDGE_RING_MIN_GAP && zones.edge.tested >= EDGE_RING_MIN_EDGE_DIES;
-    return { wafer: row.wafer_slot, edgeYield, centreYield, gap, edgeTested: zones.edge.tested, ring };
+    return { wafer, edgeYield, centreYield, gap, edgeTested: zones.edge.tested, ring };
   });
 }
