@@ -1,9 +1,9 @@
 import type { ColumnLayout } from "./header-columns";
 import { ProbeFileError, quoteCell, type ProbeFileErrorCode } from "./probe-file-error";
-import { MAX_KEPT_WARNINGS, type DieFragment, type RowWarning } from "./probe-file-types";
+import { type FragmentBatch, FragmentBatchWriter } from "./fragment-batch";
+import { MAX_KEPT_WARNINGS, type RowWarning } from "./probe-file-types";
 import { parseStrictNumber } from "./strict-number";
 
-const INITIAL_POINTS = 16;
 const FIRST_WAFER_SLOT = 1; // §3: a wafer is slot 1–25 of its lot
 const LAST_WAFER_SLOT = 25;
 // Lets skipped == fraction × rows pass despite the product's last-bit rounding.
@@ -32,15 +32,16 @@ export class DieFragmentBuilder {
   fatal: ProbeFileError | null = null;
   private firstBad: BadRow | null = null;
   private lastSkippedLine = 0;
-  private done: DieFragment[] = [];
+  private readonly batch = new FragmentBatchWriter();
   private open = false;
   private wafer = 0;
   private x = 0;
   private y = 0;
-  private biasV = new Float64Array(0);
-  private currentA = new Float64Array(0);
-  private compliance = new Uint8Array(0);
-  private length = 0;
+  // The cells the open fragment's last row had (a die's rows repeat them).
+  private waferCell = "";
+  private xCell = "";
+  private yCell = "";
+  private temperatureCell = "";
   private temperatureK: number | null = null;
   private site: string | null = null;
   private firstLine = 0;
@@ -57,15 +58,25 @@ export class DieFragmentBuilder {
     this.rows++;
     const c = this.layout;
     if (record.length !== c.fieldCount) return this.skip(line, "bad_value", `expected ${c.fieldCount} fields, found ${record.length}`);
-    const wafer = parseStrictNumber(record[c.wafer]);
-    if (Number.isNaN(wafer)) return this.skipCell(record, line, c.wafer, "is not a number");
-    if (!Number.isInteger(wafer) || wafer < FIRST_WAFER_SLOT || wafer > LAST_WAFER_SLOT) {
-      return this.skipCell(record, line, c.wafer, `is not an integer in ${FIRST_WAFER_SLOT}–${LAST_WAFER_SLOT}`, "wafer_range");
+    const waferCell = record[c.wafer]!;
+    const xCell = record[c.dieX]!;
+    const yCell = record[c.dieY]!;
+    // A die's rows repeat its wafer, x and y cells: the same text again is the same (already valid) number.
+    const sameDie = this.open && waferCell === this.waferCell && xCell === this.xCell && yCell === this.yCell;
+    let wafer = this.wafer;
+    let x = this.x;
+    let y = this.y;
+    if (!sameDie) {
+      wafer = parseStrictNumber(waferCell);
+      if (Number.isNaN(wafer)) return this.skipCell(record, line, c.wafer, "is not a number");
+      if (!Number.isInteger(wafer) || wafer < FIRST_WAFER_SLOT || wafer > LAST_WAFER_SLOT) {
+        return this.skipCell(record, line, c.wafer, `is not an integer in ${FIRST_WAFER_SLOT}–${LAST_WAFER_SLOT}`, "wafer_range");
+      }
+      x = parseStrictNumber(xCell);
+      if (!Number.isInteger(x)) return this.skipCell(record, line, c.dieX, "is not an integer");
+      y = parseStrictNumber(yCell);
+      if (!Number.isInteger(y)) return this.skipCell(record, line, c.dieY, "is not an integer");
     }
-    const x = parseStrictNumber(record[c.dieX]);
-    if (!Number.isInteger(x)) return this.skipCell(record, line, c.dieX, "is not an integer");
-    const y = parseStrictNumber(record[c.dieY]);
-    if (!Number.isInteger(y)) return this.skipCell(record, line, c.dieY, "is not an integer");
     const bias = parseStrictNumber(record[c.bias]);
     if (Number.isNaN(bias)) return this.skipCell(record, line, c.bias, "is not a number");
     const current = parseStrictNumber(record[c.current]);
@@ -73,9 +84,12 @@ export class DieFragmentBuilder {
     let temperatureK: number | null = null;
     if (c.temperature >= 0) {
       const cell = record[c.temperature] ?? "";
-      temperatureK = parseStrictNumber(cell);
-      if (Number.isNaN(temperatureK) && cell.trim() === "") temperatureK = null;
-      else if (!(temperatureK > 0)) return this.skipCell(record, line, c.temperature, "is not a positive number");
+      if (sameDie && cell === this.temperatureCell) temperatureK = this.temperatureK;
+      else {
+        temperatureK = parseStrictNumber(cell);
+        if (Number.isNaN(temperatureK) && cell.trim() === "") temperatureK = null;
+        else if (!(temperatureK > 0)) return this.skipCell(record, line, c.temperature, "is not a positive number");
+      }
     }
     let hit = 0;
     if (c.compliance >= 0) {
@@ -93,11 +107,11 @@ export class DieFragmentBuilder {
       this.fatal = new ProbeFileError("mixed_temperature", line, `${die} has points at ${formatTemperature(temperatureK)} here and ${earlier}`);
       return;
     }
-    if (this.length === this.biasV.length) this.grow();
-    this.biasV[this.length] = bias / c.biasDivisor;
-    this.currentA[this.length] = current / c.currentDivisor;
-    this.compliance[this.length] = hit;
-    this.length++;
+    this.waferCell = waferCell;
+    this.xCell = xCell;
+    this.yCell = yCell;
+    if (c.temperature >= 0) this.temperatureCell = record[c.temperature] ?? "";
+    this.batch.point(bias / c.biasDivisor, current / c.currentDivisor, hit);
     this.lastLine = line;
   }
 
@@ -113,11 +127,9 @@ export class DieFragmentBuilder {
     this.closeFragment();
   }
 
-  /** Fragments completed since the last call, in file order. */
-  takeFragments(): DieFragment[] {
-    const done = this.done;
-    this.done = [];
-    return done;
+  /** Fragments completed since the last call, in file order, as one batch. */
+  takeBatch(): FragmentBatch {
+    return this.batch.take();
   }
 
   /** Throws when skipped rows exceed `fraction` × data rows, with the first bad row's code, line and reason. */
@@ -148,36 +160,16 @@ export class DieFragmentBuilder {
     this.wafer = wafer;
     this.x = x;
     this.y = y;
-    this.biasV = new Float64Array(INITIAL_POINTS);
-    this.currentA = new Float64Array(INITIAL_POINTS);
-    this.compliance = new Uint8Array(INITIAL_POINTS);
-    this.length = 0;
     this.temperatureK = temperatureK;
     const site = this.layout.site >= 0 ? (record[this.layout.site] ?? "").trim() : "";
     this.site = site === "" ? null : site;
     this.firstLine = line;
   }
 
-  /** Doubles the open fragment's arrays (they start at INITIAL_POINTS). */
-  private grow(): void {
-    const size = 2 * this.biasV.length;
-    const biasV = new Float64Array(size);
-    const currentA = new Float64Array(size);
-    const compliance = new Uint8Array(size);
-    biasV.set(this.biasV);
-    currentA.set(this.currentA);
-    compliance.set(this.compliance);
-    [this.biasV, this.currentA, this.compliance] = [biasV, currentA, compliance];
-  }
-
   private closeFragment(): void {
     if (!this.open) return;
     this.open = false;
     this.fragments++;
-    const { wafer, x, y, length, temperatureK, site, firstLine, lastLine } = this;
-    const biasV = this.biasV.subarray(0, length);
-    const currentA = this.currentA.subarray(0, length);
-    const compliance = this.compliance.subarray(0, length);
-    this.done.push({ wafer, x, y, biasV, currentA, compliance, length, temperatureK, site, firstLine, lastLine });
+    this.batch.end(this.wafer, this.x, this.y, this.temperatureK, this.site, this.firstLine, this.lastLine);
   }
 }

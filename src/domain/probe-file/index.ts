@@ -1,4 +1,5 @@
-export { readProbeFile } from "./read-probe-file";
+export { fragmentItems, readProbeFile, readProbeFileBatches, type ProbeFileBatchItem } from "./read-probe-file";
+export { type FragmentBatch, FragmentBatchWriter, transferables, unpackFragments } from "./fragment-batch";
 export { ProbeFileError, type ProbeFileErrorCode } from "./probe-file-error";
 export {
   DEFAULT_ERROR_BUDGET_FRACTION,

@@ -14,12 +14,15 @@ export type ProbeFileErrorCode =
 export class ProbeFileError extends Error {
   readonly code: ProbeFileErrorCode;
   readonly line: number | null;
+  /** The message without its line prefix. */
+  readonly reason: string;
 
   constructor(code: ProbeFileErrorCode, line: number | null, reason: string) {
     super(line === null ? reason : `line ${line}: ${reason}`);
     this.name = "ProbeFileError";
     this.code = code;
     this.line = line;
+    this.reason = reason;
   }
 }
 

@@ -1,6 +1,6 @@
 import { readFileSync } from "node:fs";
 import { ProbeFileError } from "./probe-file-error";
-import type { DieFragment, ProbeFileHeader, ProbeFileSummary, ReadOptions } from "./probe-file-types";
+import type { DieFragment, ProbeFileHeader, ProbeFileItem, ProbeFileSummary, ReadOptions } from "./probe-file-types";
 import { readProbeFile } from "./read-probe-file";
 
 /** Test support: the bytes of a fixture in fixtures/probe/. */
@@ -31,11 +31,15 @@ export interface ReadResult {
   error: ProbeFileError | null;
 }
 
-/** Test support: drains readProbeFile, keeping a ProbeFileError as a value so results can be compared whole. */
-export async function readAll(source: AsyncIterable<Uint8Array | string>, options?: ReadOptions): Promise<ReadResult> {
+/** Test support: drains readProbeFile (or `read`, a reader with its interface), keeping a ProbeFileError as a value so results can be compared whole. */
+export async function readAll<S extends AsyncIterable<Uint8Array | string>>(
+  source: S,
+  options?: ReadOptions,
+  read: (source: S, options?: ReadOptions) => AsyncGenerator<ProbeFileItem, ProbeFileSummary, undefined> = readProbeFile,
+): Promise<ReadResult> {
   const result: ReadResult = { header: null, fragments: [], summary: null, error: null };
   try {
-    const reader = readProbeFile(source, options);
+    const reader = read(source, options);
     for (let next = await reader.next(); ; next = await reader.next()) {
       if (next.done === true) {
         result.summary = next.value;

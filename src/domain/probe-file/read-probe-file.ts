@@ -1,4 +1,5 @@
 import { DieFragmentBuilder } from "./die-fragment-builder";
+import { type FragmentBatch, unpackFragments } from "./fragment-batch";
 import { HeadReader, type ProbeFileHead } from "./head-reader";
 import { detectDelimiter, resolveColumns } from "./header-columns";
 import { ProbeFileError } from "./probe-file-error";
@@ -11,6 +12,8 @@ import {
 } from "./probe-file-types";
 import { RowParser } from "./row-parser";
 import { Utf8Guard } from "./utf8-guard";
+
+export type ProbeFileBatchItem = { kind: "header"; header: ProbeFileHeader } | { kind: "batch"; batch: FragmentBatch };
 
 interface Reading {
   header: ProbeFileHeader;
@@ -58,6 +61,36 @@ export async function* readProbeFile(
   source: AsyncIterable<Uint8Array | string>,
   options: ReadOptions = {},
 ): AsyncGenerator<ProbeFileItem, ProbeFileSummary, undefined> {
+  return yield* fragmentItems(readProbeFileBatches(source, options));
+}
+
+/**
+ * A batch reader's items with each batch unpacked into its fragments, in order; the same summary or refusal. A
+ * consumer that stops early stops the batch reader too.
+ */
+export async function* fragmentItems(
+  reader: AsyncGenerator<ProbeFileBatchItem, ProbeFileSummary, undefined>,
+): AsyncGenerator<ProbeFileItem, ProbeFileSummary, undefined> {
+  try {
+    for (;;) {
+      const next = await reader.next();
+      if (next.done) return next.value;
+      if (next.value.kind === "header") yield next.value;
+      else for (const fragment of unpackFragments(next.value.batch)) yield { kind: "fragment", fragment };
+    }
+  } finally {
+    await reader.return(undefined as never);
+  }
+}
+
+/**
+ * readProbeFile with the fragments of each chunk of the source in one FragmentBatch: the same header, fragments,
+ * summary and refusals, for a consumer that hands them on whole (to another thread) rather than one by one.
+ */
+export async function* readProbeFileBatches(
+  source: AsyncIterable<Uint8Array | string>,
+  options: ReadOptions = {},
+): AsyncGenerator<ProbeFileBatchItem, ProbeFileSummary, undefined> {
   const budgetFraction = options.errorBudgetFraction ?? DEFAULT_ERROR_BUDGET_FRACTION;
   if (!(budgetFraction >= 0 && budgetFraction <= 1)) throw new RangeError(`errorBudgetFraction must be in 0–1, got ${budgetFraction}`);
   const encoder = new TextEncoder();
@@ -81,7 +114,7 @@ export async function* readProbeFile(
           feed(reading, head.rest);
         }
       }
-      if (reading !== null) for (const fragment of reading.rows.takeFragments()) yield { kind: "fragment", fragment };
+      if (reading !== null) yield { kind: "batch", batch: reading.rows.takeBatch() };
       options.onProgress?.(bytes);
     }
     guard.finish();
@@ -95,7 +128,7 @@ export async function* readProbeFile(
     const rows = reading.rows;
     if (rows.fatal !== null) throw rows.fatal;
     rows.finish();
-    for (const fragment of rows.takeFragments()) yield { kind: "fragment", fragment };
+    yield { kind: "batch", batch: rows.takeBatch() };
     rows.checkBudget(budgetFraction);
     if (rows.rows === rows.skippedRows) {
       const what = rows.rows === 0 ? "no data rows" : `no usable data rows (all ${rows.rows} were skipped)`;

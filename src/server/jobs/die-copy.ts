@@ -1,5 +1,14 @@
 import "server-only";
 import type { DieResult } from "@/domain/transport";
+import { SWEEP_BYTES_PER_POINT, writeSweep } from "./sweep-codec";
+
+/** A die's points, as the probe-file reader and the sweep codec hold them. */
+export interface SweepArrays {
+  biasV: Float64Array;
+  currentA: Float64Array;
+  compliance: Uint8Array;
+  length: number;
+}
 
 // Rows for COPY … FROM STDIN in PostgreSQL's binary format (PostgreSQL documentation, "COPY", section "Binary
 // Format"): an 11-byte signature, a flags word and a header-extension length, then per tuple an int16 field count
@@ -43,8 +52,10 @@ export class DieCopyEncoder {
     return this.at;
   }
 
-  die(wafer: number, x: number, y: number, r: DieResult, site: string | null, points: number, sweep: Buffer, firstLine: number): void {
-    this.ensure(2 + FIELDS * 12 + 256 + sweep.length + (r.reason?.length ?? 0) * 3 + (site?.length ?? 0) * 3);
+  /** One die: its identity, its §5 result and its sweep (written as sweep-codec's bytes, straight into the batch). */
+  die(wafer: number, x: number, y: number, r: DieResult, site: string | null, sweep: SweepArrays, firstLine: number): void {
+    const sweepBytes = sweep.length * SWEEP_BYTES_PER_POINT;
+    this.ensure(2 + FIELDS * 12 + 256 + sweepBytes + (r.reason?.length ?? 0) * 3 + (site?.length ?? 0) * 3);
     this.at = this.buffer.writeInt16BE(FIELDS, this.at);
     this.int4(wafer);
     this.int4(x);
@@ -62,9 +73,9 @@ export class DieCopyEncoder {
     this.text(r.reason);
     this.float8(r.temperatureK);
     this.text(site);
-    this.int4(points);
-    this.at = this.buffer.writeInt32BE(sweep.length, this.at);
-    this.at += sweep.copy(this.buffer, this.at);
+    this.int4(sweep.length);
+    this.at = this.buffer.writeInt32BE(sweepBytes, this.at);
+    this.at = writeSweep(this.buffer, this.at, sweep.biasV, sweep.currentA, sweep.compliance, sweep.length);
     this.int4(firstLine);
   }
 

@@ -71,11 +71,12 @@ function metadataLineFinder(head: Buffer): (key: string) => number | null {
 }
 
 /**
- * Takes an upload into the object store and queues its ingest job. The same bytes again answer the first job
+ * Takes an upload into the object store and queues its ingest job (`declaredBytes`: the body's length when the
+ * request states it). The same bytes again answer the first job
  * (created: false). Header problems and lot/product disagreements are refused here, before anything is queued.
  */
-export async function enqueueIngest(scope: Scope, body: Readable, fileName: string | null, fields: IngestFields): Promise<{ job: JobView; created: boolean }> {
-  const stored = await streamToObjectStore(scope.tenantId, body, env.MAX_UPLOAD_BYTES);
+export async function enqueueIngest(scope: Scope, body: Readable, fileName: string | null, fields: IngestFields, declaredBytes: number | null = null): Promise<{ job: JobView; created: boolean }> {
+  const stored = await streamToObjectStore(scope.tenantId, body, env.MAX_UPLOAD_BYTES, declaredBytes);
   try {
     const existing = await withScope(scope, async (tx) => {
       const file = await tx.selectFrom("raw_files").select("id").where("sha256", "=", stored.sha256).executeTakeFirst();

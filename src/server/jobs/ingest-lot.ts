@@ -3,7 +3,7 @@ import { pipeline } from "node:stream/promises";
 import { Readable } from "node:stream";
 import type pg from "pg";
 import { from as copyFrom } from "pg-copy-streams";
-import { ProbeFileError, type ProbeFileSummary, readProbeFile } from "@/domain/probe-file";
+import { ProbeFileError, type ProbeFileSummary, unpackFragments } from "@/domain/probe-file";
 import { analyzeDieArrays, type ExtractionSettings } from "@/domain/transport";
 import type { IngestReport } from "@/lib/schemas/ingest";
 import { pool } from "../db/client";
@@ -16,7 +16,8 @@ import { staticWindowInForce } from "../spc/static-window";
 import { COPY_TMP_DIES, CREATE_TMP_DIES, DieCopyEncoder } from "./die-copy";
 import { refreshLotTotals, replaceWafers } from "./lot-aggregates";
 import { type ClaimedJob, failJob, heartbeat, retryJob } from "./queue";
-import { concatSweeps, decodeSweep, encodeSweep } from "./sweep-codec";
+import { readProbeFileBatchesInThread } from "./read-in-thread";
+import { concatSweeps, decodeSweep } from "./sweep-codec";
 
 const RESERVED_METADATA = new Set(["lot", "product", "chuck_temperature_k"]);
 // COPY rows go to PostgreSQL in batches of about this many bytes: a write per die (~400 bytes) cost a CopyData
@@ -67,10 +68,14 @@ function stageClock() {
   };
 }
 
-/** Streams the raw file through the probe-file reader and the §5 computation into tmp_dies with COPY. */
+/**
+ * Streams the raw file through the probe-file reader and the §5 computation into tmp_dies with COPY. The reader
+ * runs in its own thread: parsing was the larger half of this stage's CPU, and this thread fits and encodes the
+ * dies of one chunk while the reader parses the next.
+ */
 async function streamDies(client: pg.PoolClient, ctx: Context, lease: Lease, objectKey: string, onProgress: (bytesRead: number) => void) {
   let header: { metadata: Record<string, string>; ignoredColumns: string[] } | null = null;
-  const reader = readProbeFile(await openRawFile(objectKey), { errorBudgetFraction: await errorBudget(ctx.job.tenantId), onProgress });
+  const reader = readProbeFileBatchesInThread(await openRawFile(objectKey), { errorBudgetFraction: await errorBudget(ctx.job.tenantId), onProgress });
 
   async function* batches(): AsyncGenerator<Buffer> {
     const encoder = new DieCopyEncoder();
@@ -87,17 +92,23 @@ async function streamDies(client: pg.PoolClient, ctx: Context, lease: Lease, obj
         header = item.header;
         continue;
       }
-      const f = item.fragment;
-      const temperatureK = f.temperatureK ?? ctx.chuckTemperatureK;
-      const result = analyzeDieArrays(f.biasV, f.currentA, f.compliance, f.length, ctx.settings, temperatureK);
-      encoder.die(f.wafer, f.x, f.y, result, f.site, f.length, encodeSweep(f.biasV, f.currentA, f.compliance, f.length), f.firstLine);
+      for (const f of unpackFragments(item.batch)) {
+        const temperatureK = f.temperatureK ?? ctx.chuckTemperatureK;
+        const result = analyzeDieArrays(f.biasV, f.currentA, f.compliance, f.length, ctx.settings, temperatureK);
+        encoder.die(f.wafer, f.x, f.y, result, f.site, f, f.firstLine);
+      }
       if (encoder.size >= COPY_BATCH_BYTES) yield encoder.take();
       if (lease.lost()) throw new Error("the job's lease was taken over by another worker");
     }
   }
   let summary: ProbeFileSummary | null = null;
   const copy = client.query(copyFrom(COPY_TMP_DIES));
-  await pipeline(Readable.from(batches(), { objectMode: false, highWaterMark: 64 }), copy);
+  try {
+    await pipeline(Readable.from(batches(), { objectMode: false, highWaterMark: 64 }), copy);
+  } finally {
+    // When the COPY or the lease fails first, this stops the reader's thread and its download.
+    await reader.return(undefined as never).catch(() => undefined);
+  }
   return { summary: summary!, header: header! };
 }
 
@@ -144,7 +155,7 @@ async function mergeRepeatedDies(client: pg.PoolClient, ctx: Context, repeated: 
     if (other) throw new ProbeFileError("mixed_temperature", other.first_line, `die (${first.wafer_slot}, ${first.x}, ${first.y}) has points at ${first.temperature_k} K and at ${other.temperature_k} K`);
     const sweep = concatSweeps(parts.map((p) => decodeSweep(p.sweep)));
     const result = analyzeDieArrays(sweep.biasV, sweep.currentA, sweep.compliance, sweep.length, ctx.settings, first.temperature_k);
-    encoder.die(first.wafer_slot, first.x, first.y, result, first.site, sweep.length, encodeSweep(sweep.biasV, sweep.currentA, sweep.compliance, sweep.length), first.first_line);
+    encoder.die(first.wafer_slot, first.x, first.y, result, first.site, sweep, first.first_line);
   }
   encoder.end();
   await client.query(`delete from tmp_dies where (wafer_slot::float8 * 1e10 + (x + 50000)::float8 * 1e5 + (y + 50000)) = any($1::float8[])`, [keys]);
@@ -213,7 +224,9 @@ export async function runIngestJob(job: ClaimedJob): Promise<"done" | "failed" |
     const { repeated, extraFragments } = await findRepeatedDies(client);
     await mergeRepeatedDies(client, ctx, repeated);
     // A temp table has no statistics until analysed: without them the planner misjudges the set-based steps below.
-    await client.query("analyze tmp_dies");
+    // Only the columns those steps group and join by: all columns, the sweeps included, took twice as long
+    // (125,000 dies: 0.22–0.27 s against 0.10–0.14 s).
+    await client.query("analyze tmp_dies (wafer_slot, x, y, bin)");
     stages.lap("merge");
     const lot = await upsertLot(client, ctx, product.id, customerId, product.code, streamed.header.metadata);
     const staticWindow = product.dieWindow === "static" ? await staticWindowInForce(client, job.tenantId, product.id, lot.probedAt) : null;

@@ -1,6 +1,7 @@
+import http from "node:http";
 import { afterAll, describe, expect, it } from "vitest";
 import { api, createSampleProduct, fixture, ingestAndWait, upload, waitForJob } from "@/test/ingest-helpers";
-import { createTestTenant, ownerPool } from "@/test/tenants";
+import { appUrl, createTestTenant, ownerPool } from "@/test/tenants";
 
 const pool = ownerPool();
 afterAll(() => pool.end());
@@ -180,20 +181,49 @@ describe("probe lot ingest through the API and the worker (§4, §5, §9)", () =
     expect((await upload(tenant, fixture("good-small.csv"), "", "customer")).status).toBe(403);
   });
 
-  it("stores and reads every byte of an upload larger than 10 MB (threat: a body silently cut by a proxy buffer)", async () => {
-    const tenant = await freshTenant("ingest-big");
+  it("stores and reads every byte of an upload larger than 10 MB, sent as the body (one PUT) or as a form part (in parts) (threat: a body silently cut by a proxy buffer)", async () => {
     const rows = ["# lot: BIG-0001", "# product: VD-NW40", "# chuck_temperature_k: 300.15", "wafer,die_x,die_y,bias_mv,current_na"];
     for (let die = 0; rows.length < 600_000; die++) {
       for (let v = -10; v <= 10; v += 2) rows.push(`${1 + (die % 25)},${Math.floor(die / 25) % 250},${Math.floor(die / 6250)},${v},${(v * 1.5).toFixed(6)}`);
     }
     const body = rows.join("\n") + "\n";
-    expect(Buffer.byteLength(body)).toBeGreaterThan(11 * 1024 * 1024);
-    const response = await upload(tenant, body);
-    expect(response.status).toBe(202);
-    const job = await waitForJob(tenant, (await response.json()).job.id, 170_000);
-    expect(job.status).toBe("done");
-    expect(job.report?.rows).toBe(rows.length - 4);
-    const stored = await pool.query("select size_bytes from raw_files where tenant_id = $1", [tenant.id]);
-    expect(Number(stored.rows[0].size_bytes)).toBe(Buffer.byteLength(body));
+    expect(Buffer.byteLength(body)).toBeGreaterThan(11 * 1024 * 1024); // more than one 8 MiB part
+    const asBody = await freshTenant("ingest-big");
+    const asForm = await freshTenant("ingest-big-form");
+    const form = new FormData();
+    form.append("file", new Blob([body], { type: "text/csv" }), "big.csv");
+    const responses = [await upload(asBody, body), await api(asForm, "engineer", "/api/v1/lots/ingest", { method: "POST", body: form })];
+    for (const [tenant, response] of [[asBody, responses[0]!], [asForm, responses[1]!]] as const) {
+      expect(response.status).toBe(202);
+      const job = await waitForJob(tenant, (await response.json()).job.id, 170_000);
+      expect(job.status).toBe("done");
+      expect(job.report?.rows).toBe(rows.length - 4);
+      const stored = await pool.query("select size_bytes from raw_files where tenant_id = $1", [tenant.id]);
+      expect(Number(stored.rows[0].size_bytes)).toBe(Buffer.byteLength(body));
+    }
   }, 180_000);
+
+  it("refuses a body whose declared length is over the upload limit with 413 before reading it, and stores nothing", async () => {
+    const tenant = await freshTenant("ingest-declared-too-large");
+    const answer = await new Promise<{ status: number; text: string }>((resolve, reject) => {
+      const request = http.request(new URL("/api/v1/lots/ingest", appUrl), {
+        method: "POST",
+        headers: { authorization: `Bearer ${tenant.keys.engineer}`, "content-type": "text/csv", "content-length": String(4 * 1024 ** 3 + 1) },
+      });
+      request.on("response", (response) => {
+        let text = "";
+        response.on("data", (c: Buffer) => (text += c.toString("utf8")));
+        response.on("end", () => {
+          resolve({ status: response.statusCode ?? 0, text });
+          request.destroy();
+        });
+      });
+      request.on("error", reject);
+      request.write(fixture("good-small.csv")); // a few hundred bytes of the 4 GiB it announced
+    });
+    expect(answer.status).toBe(413);
+    expect(JSON.parse(answer.text).error.message).toMatch(/larger than the limit/);
+    expect((await pool.query("select count(*)::int as n from raw_files where tenant_id = $1", [tenant.id])).rows[0].n).toBe(0);
+    expect(await lotCount(tenant.id)).toBe(0);
+  });
 });

@@ -30,18 +30,18 @@ export async function replaceWafers(
 
   // Bin counts come from one grouped pass (a subquery per wafer rescanned tmp_dies 25 times), and out-of-window
   // counts from the window computed here (counting them in dies afterwards rescanned the lot's dies per wafer).
+  // The dies are aggregated before the bin counts join in: joined first, every die carried its wafer's jsonb
+  // through the sort (125,000 dies: 0.32–0.37 s, aggregated first 0.17–0.21 s).
   await client.query(
     `insert into wafers (tenant_id, lot_id, slot, tested, pass, median_conductance_s, bin_counts, window_low_s, window_high_s, out_of_window, job_id, probed_at)
-     select $1, $2, t.wafer_slot, count(*), count(*) filter (where t.bin = 'PASS'),
-            percentile_cont(0.5) within group (order by t.conductance_s) filter (where t.${PARAMETRIC}),
-            b.counts, w.low, w.high,
-            count(*) filter (where t.bin = 'PASS' and (t.conductance_s < w.low or t.conductance_s > w.high)),
-            $3, $4
-       from tmp_dies t
-       left join (${windowSql}) w on w.wafer_slot = t.wafer_slot
+     select $1, $2, a.wafer_slot, a.tested, a.pass, a.median, b.counts, a.low, a.high, a.out_of_window, $3, $4
+       from (select t.wafer_slot, w.low, w.high, count(*) as tested, count(*) filter (where t.bin = 'PASS') as pass,
+                    percentile_cont(0.5) within group (order by t.conductance_s) filter (where t.${PARAMETRIC}) as median,
+                    count(*) filter (where t.bin = 'PASS' and (t.conductance_s < w.low or t.conductance_s > w.high)) as out_of_window
+               from tmp_dies t left join (${windowSql}) w on w.wafer_slot = t.wafer_slot
+              group by t.wafer_slot, w.low, w.high) a
        join (select wafer_slot, jsonb_object_agg(bin, n) as counts
-               from (select wafer_slot, bin, count(*) as n from tmp_dies group by wafer_slot, bin) c group by wafer_slot) b on b.wafer_slot = t.wafer_slot
-      group by t.wafer_slot, w.low, w.high, b.counts`,
+               from (select wafer_slot, bin, count(*) as n from tmp_dies group by wafer_slot, bin) c group by wafer_slot) b on b.wafer_slot = a.wafer_slot`,
     dieWindow === "pat" ? [tenantId, lotId, jobId, probedAt, k] : staticWindow ? [tenantId, lotId, jobId, probedAt, staticWindow.lowS, staticWindow.highS] : [tenantId, lotId, jobId, probedAt],
   );
   await client.query(

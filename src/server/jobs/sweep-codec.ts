@@ -1,14 +1,23 @@
 // The compact per-die sweep kept with each die: little-endian float64 triples (bias V, current A, compliance 0/1).
 // Plain code, no server imports, so the API and the tests share it.
 
+export const SWEEP_BYTES_PER_POINT = 24;
+
 export function encodeSweep(bias: Float64Array, current: Float64Array, compliance: Uint8Array, length: number): Buffer {
-  const out = Buffer.allocUnsafe(length * 24);
-  for (let i = 0; i < length; i++) {
-    out.writeDoubleLE(bias[i]!, i * 24);
-    out.writeDoubleLE(current[i]!, i * 24 + 8);
-    out.writeDoubleLE(compliance[i]!, i * 24 + 16);
-  }
+  const out = Buffer.allocUnsafe(length * SWEEP_BYTES_PER_POINT);
+  writeSweep(out, 0, bias, current, compliance, length);
   return out;
+}
+
+/** Writes the sweep's bytes into `out` at `at` (length × SWEEP_BYTES_PER_POINT of them); returns the offset after. */
+export function writeSweep(out: Buffer, at: number, bias: Float64Array, current: Float64Array, compliance: Uint8Array, length: number): number {
+  for (let i = 0; i < length; i++) {
+    const p = at + i * SWEEP_BYTES_PER_POINT;
+    out.writeDoubleLE(bias[i]!, p);
+    out.writeDoubleLE(current[i]!, p + 8);
+    out.writeDoubleLE(compliance[i]!, p + 16);
+  }
+  return at + length * SWEEP_BYTES_PER_POINT;
 }
 
 export interface DecodedSweep {

@@ -27,8 +27,12 @@ export const POST = apiRoute({ permission: "lots.upload" }, async ({ request, ur
   let body: Readable;
   let fileName: string | null = url.searchParams.get("filename");
   let formFields: Record<string, string> = {};
+  let declaredBytes: number | null = null;
   if (type.startsWith("text/csv") || type.startsWith("application/csv") || type.startsWith("text/plain")) {
     body = Readable.fromWeb(request.body as never);
+    // The body is the file: its Content-Length is the file's size (unless the body is encoded in transit).
+    const length = Number(request.headers.get("content-length") ?? Number.NaN);
+    if (Number.isSafeInteger(length) && length >= 0 && !request.headers.has("content-encoding")) declaredBytes = length;
   } else if (type.startsWith("multipart/form-data")) {
     const part = await multipartFile(request);
     body = part.file;
@@ -39,6 +43,6 @@ export const POST = apiRoute({ permission: "lots.upload" }, async ({ request, ur
   }
   const query = Object.fromEntries(["lot", "product", "chuck_temperature_k"].flatMap((k) => { const v = url.searchParams.get(k) ?? formFields[k]; return v ? [[k, v]] : []; }));
   const fields = ingestFieldsSchema.parse(query);
-  const { job, created } = await enqueueIngest(scope, body, fileName, fields);
+  const { job, created } = await enqueueIngest(scope, body, fileName, fields, declaredBytes);
   return Response.json({ job }, { status: created ? 202 : 200 });
 });

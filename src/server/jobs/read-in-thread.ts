@@ -1,0 +1,173 @@
+import "server-only";
+import { Worker } from "node:worker_threads";
+import { fragmentItems, type ProbeFileBatchItem, ProbeFileError, type ProbeFileItem, type ProbeFileSummary, type ReadOptions } from "@/domain/probe-file";
+import type { FromThread, ThreadReadOptions, ToThread } from "./probe-thread-protocol";
+
+// Bytes go to the thread in chunks of at least this size, at most IN_FLIGHT at a time: the thread always has the
+// next chunk to parse while this thread handles the fragments of the last, and no more than ~0.5 MB waits.
+const CHUNK_BYTES = 128 * 1024;
+const IN_FLIGHT = 3;
+
+/**
+ * Threads for reading probe files, one file at a time each. A thread that finished its file (read to the end or
+ * refused) is kept for the next one: a new thread per job compiled csv-parse afresh each time, and each one left
+ * memory behind in the process (its RSS rose by some 30–50 MB a job over six bench:ingest jobs). A thread whose
+ * read was abandoned or failed is stopped instead. At most `keep` wait, unreferenced, so they never hold the
+ * process open.
+ */
+export class ProbeThreads {
+  private readonly idle: Worker[] = [];
+
+  constructor(
+    private readonly create: () => Worker,
+    private readonly keep = 1,
+  ) {}
+
+  acquire(): Worker {
+    const thread = this.idle.pop();
+    if (thread) {
+      thread.ref();
+      return thread;
+    }
+    const fresh = this.create();
+    fresh.once("exit", () => {
+      const at = this.idle.indexOf(fresh);
+      if (at >= 0) this.idle.splice(at, 1);
+    });
+    return fresh;
+  }
+
+  /** Back to the pool after a read that ended with its final message. */
+  release(thread: Worker): void {
+    if (this.idle.length >= this.keep) {
+      void thread.terminate();
+      return;
+    }
+    thread.unref();
+    this.idle.push(thread);
+  }
+
+  async discard(thread: Worker): Promise<void> {
+    await thread.terminate();
+  }
+
+  /** Stops the waiting threads (tests). */
+  async close(): Promise<void> {
+    await Promise.all(this.idle.splice(0).map((t) => t.terminate()));
+  }
+}
+
+// The thread is parsing garbage (a string per field): a young generation of 32 MB collects it as well as the app's
+// 64 MB semi-spaces would, without each thread's heap growing to the app's size.
+const appThreads = new ProbeThreads(() => new Worker(new URL("./probe-thread.ts", import.meta.url), { resourceLimits: { maxYoungGenerationSizeMb: 32 } }));
+let reads = 0;
+
+/** readProbeFile in a worker thread (see readProbeFileBatchesInThread), one fragment at a time. */
+export function readProbeFileInThread(
+  source: AsyncIterable<Uint8Array>,
+  options: ReadOptions = {},
+  threads: ProbeThreads = appThreads,
+): AsyncGenerator<ProbeFileItem, ProbeFileSummary, undefined> {
+  return fragmentItems(readProbeFileBatchesInThread(source, options, threads));
+}
+
+/**
+ * readProbeFileBatches run in a worker thread: the same header, fragments, summary and refusals (with their
+ * lines), but parsing overlaps whatever the caller does with each batch. The source is read only as fast as
+ * batches are taken, so memory stays bounded as with readProbeFile. A thread that fails for any other reason
+ * throws an Error.
+ */
+export async function* readProbeFileBatchesInThread(
+  source: AsyncIterable<Uint8Array>,
+  options: ReadOptions = {},
+  threads: ProbeThreads = appThreads,
+): AsyncGenerator<ProbeFileBatchItem, ProbeFileSummary, undefined> {
+  const { onProgress, ...threadOptions } = options;
+  const read = ++reads;
+  const thread = threads.acquire();
+  const inbox: FromThread[] = [];
+  let wake: (() => void) | null = null;
+  const arrive = (message: FromThread) => {
+    if (message.read !== read) return;
+    inbox.push(message);
+    wake?.();
+    wake = null;
+  };
+  const failed = (error: Error) => arrive({ read, kind: "crashed", message: error.stack ?? error.message });
+  // Its last message is delivered before this event, so after "done" or a refusal it is never read.
+  const exited = (code: number) => arrive({ read, kind: "crashed", message: `the thread stopped (exit code ${code}) before the end of the file` });
+  thread.on("message", arrive);
+  thread.on("error", failed);
+  thread.on("exit", exited);
+
+  const input = source[Symbol.asyncIterator]();
+  const post = (message: ToThread, transfer: ArrayBuffer[] = []) => thread.postMessage(message, transfer);
+  const inFlight: number[] = []; // byte sizes of the chunks sent and not yet answered
+  let pending: Uint8Array[] = [];
+  let pendingBytes = 0;
+  let ended = false;
+  let finished = false; // the thread sent its final message for this read
+  let consumedBytes = 0;
+
+  const flush = () => {
+    if (pendingBytes === 0) return;
+    const bytes = new Uint8Array(pendingBytes); // a copy of our own: a stream's chunks may share a pooled buffer
+    let at = 0;
+    for (const piece of pending) {
+      bytes.set(piece, at);
+      at += piece.length;
+    }
+    pending = [];
+    pendingBytes = 0;
+    inFlight.push(bytes.length);
+    post({ kind: "chunk", read, bytes }, [bytes.buffer]);
+  };
+  const topUp = async () => {
+    while (!ended && inFlight.length < IN_FLIGHT) {
+      const next = await input.next();
+      if (next.done) {
+        flush();
+        post({ kind: "end", read });
+        ended = true;
+      } else {
+        pending.push(next.value);
+        pendingBytes += next.value.length;
+        if (pendingBytes >= CHUNK_BYTES) flush();
+      }
+    }
+  };
+
+  post({ kind: "start", read, options: threadOptions });
+  try {
+    for (;;) {
+      await topUp();
+      while (inbox.length === 0) await new Promise<void>((resolve) => (wake = resolve));
+      const message = inbox.shift()!;
+      switch (message.kind) {
+        case "header":
+          yield { kind: "header", header: message.header };
+          break;
+        case "batch":
+          yield { kind: "batch", batch: message.batch };
+          break;
+        case "consumed":
+          consumedBytes += inFlight.shift() ?? 0;
+          onProgress?.(consumedBytes);
+          break;
+        case "done":
+          finished = true;
+          return message.summary;
+        case "refused":
+          finished = true;
+          throw new ProbeFileError(message.code, message.line, message.reason);
+        case "crashed":
+          throw new Error(`the probe-file reader thread failed: ${message.message}`);
+      }
+    }
+  } finally {
+    thread.off("message", arrive);
+    thread.off("error", failed);
+    thread.off("exit", exited);
+    await Promise.all([finished ? threads.release(thread) : threads.discard(thread), ended ? undefined : input.return?.()]);
+  }
+}
