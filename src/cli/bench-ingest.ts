@@ -121,7 +121,7 @@ async function main(): Promise<void> {
       peakUploadRssBytes: highest((r) => r.peakUploadRssBytes), peakJobRssBytes: highest((r) => r.peakJobRssBytes),
       peakJudgeRssBytes: highest((r) => r.peakJudgeRssBytes), peakOwnRssBytes: highest((r) => r.peakOwnRssBytes),
     };
-    rows.push({ name, file: lot!, parse, ingest });
+    rows.push({ name, file: lot!, parse, ingest, tries: parses.map((p, i) => ({ parseSeconds: p.seconds, totalSeconds: ingests[i]!.totalSeconds })) });
   }
   sampler.stop();
   process.stdout.write(`\n${formatReport(rows)}`);

@@ -8,6 +8,8 @@ export interface BenchRow {
   file: WrittenLot;
   parse: ParseRun;
   ingest: IngestRun;
+  /** Each try's own csv-parse alone and end-to-end seconds, when the row is the best of several. */
+  tries?: { parseSeconds: number; totalSeconds: number }[];
 }
 
 // Targets from the issue: end-to-end within 2× csv-parse alone; peak RSS within 512 MB and flat in file size.
@@ -63,10 +65,11 @@ export function formatReport(rows: BenchRow[]): string {
   for (const { name, ingest: r } of rows) {
     if (Number.isNaN(r.judgeSeconds)) notes.push(`${name}: the SPC judging after the commit never reported into the job (see the app log)`);
   }
-  for (const { name, parse, ingest: r } of rows) {
+  for (const { name, parse, ingest: r, tries } of rows) {
     const ratio = r.totalSeconds / parse.seconds;
     const peak = mb(peakOf(r));
-    notes.push(`${name}: end-to-end ${ratio.toFixed(2)}× parse-alone (target ≤ ${MAX_RATIO}×: ${ratio <= MAX_RATIO ? "met" : "missed"}); ` +
+    const each = tries && tries.length > 1 ? `; try by try ${tries.map((t) => `${(t.totalSeconds / t.parseSeconds).toFixed(2)}×`).join(", ")}` : "";
+    notes.push(`${name}: end-to-end ${ratio.toFixed(2)}× parse-alone, best against best (target ≤ ${MAX_RATIO}×: ${ratio <= MAX_RATIO ? "met" : "missed"})${each}; ` +
       `peak RSS ${peak.toFixed(0)} MB (target ≤ ${MAX_PEAK_RSS_MB} MB: ${peak <= MAX_PEAK_RSS_MB ? "met" : "missed"})`);
   }
   const [base, ...larger] = rows;

@@ -6,6 +6,8 @@ import { parseStrictNumber } from "./strict-number";
 
 const FIRST_WAFER_SLOT = 1; // §3: a wafer is slot 1–25 of its lot
 const LAST_WAFER_SLOT = 25;
+// Die coordinates are stored as PostgreSQL integers (int4).
+const COORDINATE_LIMIT = 2_147_483_647;
 // Lets skipped == fraction × rows pass despite the product's last-bit rounding.
 const BUDGET_ROUNDING = 1 + 1e-12;
 
@@ -74,8 +76,10 @@ export class DieFragmentBuilder {
       }
       x = parseStrictNumber(xCell);
       if (!Number.isInteger(x)) return this.skipCell(record, line, c.dieX, "is not an integer");
+      if (Math.abs(x) > COORDINATE_LIMIT) return this.skipCell(record, line, c.dieX, `is outside ±${COORDINATE_LIMIT}`);
       y = parseStrictNumber(yCell);
       if (!Number.isInteger(y)) return this.skipCell(record, line, c.dieY, "is not an integer");
+      if (Math.abs(y) > COORDINATE_LIMIT) return this.skipCell(record, line, c.dieY, `is outside ±${COORDINATE_LIMIT}`);
     }
     const bias = parseStrictNumber(record[c.bias]);
     if (Number.isNaN(bias)) return this.skipCell(record, line, c.bias, "is not a number");

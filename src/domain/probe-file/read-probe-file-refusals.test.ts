@@ -63,13 +63,14 @@ describe("readProbeFile error budget (§4: default 0.1 % of rows)", () => {
     expect((await readAll(oneChunk(probeText(HEADER, rows)), { errorBudgetFraction: 0.02 })).error).toBeNull();
   });
 
-  it("skips rows with the wrong number of fields, a non-integer die or a non-positive temperature", async () => {
-    const rows = ["1,0,0,-1,-1,300", "1,0,0,1,1", "1,0.5,0,1,1,300", "1,0,0,2,2,-4", "1,0,0,3,3,300", "1,0,0,4,4,"];
-    const kept = await readAll(oneChunk(probeText(`${HEADER},temperature_k`, rows.slice(0, 5))), { errorBudgetFraction: 1 });
+  it("skips rows with the wrong number of fields, a non-integer die, a die beyond the integer range or a non-positive temperature", async () => {
+    const rows = ["1,0,0,-1,-1,300", "1,0,0,1,1", "1,0.5,0,1,1,300", "1,0,0,2,2,-4", "1,0,-3000000000,2,2,300", "1,0,0,3,3,300", "1,0,0,4,4,"];
+    const kept = await readAll(oneChunk(probeText(`${HEADER},temperature_k`, rows.slice(0, 6))), { errorBudgetFraction: 1 });
     expect(kept.summary?.warnings).toEqual([
       { line: 5, message: "expected 6 fields, found 5" },
       { line: 6, message: 'die_x is not an integer ("0.5")' },
       { line: 7, message: 'temperature_k is not a positive number ("-4")' },
+      { line: 8, message: 'die_y is outside ±2147483647 ("-3000000000")' },
     ]);
     expect(kept.fragments.map((f) => [f.length, f.temperatureK])).toEqual([[2, 300]]);
   });

@@ -23,7 +23,6 @@ const RESERVED_METADATA = new Set(["lot", "product", "chuck_temperature_k"]);
 // COPY rows go to PostgreSQL in batches of about this many bytes: a write per die (~400 bytes) cost a CopyData
 // message and a trip through the stream machinery each, about a third of the stream stage as measured by bench:ingest.
 const COPY_BATCH_BYTES = 64 * 1024;
-const dieKey = (wafer: number, x: number, y: number) => wafer * 1e10 + (x + 50_000) * 1e5 + (y + 50_000);
 
 interface Context {
   job: ClaimedJob;
@@ -112,16 +111,24 @@ async function streamDies(client: pg.PoolClient, ctx: Context, lease: Lease, obj
   return { summary: summary!, header: header! };
 }
 
+interface RepeatedDies {
+  wafers: number[];
+  xs: number[];
+  ys: number[];
+}
+
 /**
  * Dies that arrived as several fragments, found in tmp_dies after the stream rather than with a set of every die
  * seen: that set grew with the file (≈ 50 bytes a die, some 375 MB for a 2 GB file of 11-point sweeps).
  */
-async function findRepeatedDies(client: pg.PoolClient): Promise<{ repeated: Set<number>; extraFragments: number }> {
-  const { rows } = await client.query<{ key: number; n: number }>(
-    `select wafer_slot::float8 * 1e10 + (x + 50000)::float8 * 1e5 + (y + 50000) as key, count(*)::int as n
-       from tmp_dies group by wafer_slot, x, y having count(*) > 1`,
+async function findRepeatedDies(client: pg.PoolClient): Promise<{ repeated: RepeatedDies; extraFragments: number }> {
+  const { rows } = await client.query<{ wafer_slot: number; x: number; y: number; n: number }>(
+    "select wafer_slot, x, y, count(*)::int as n from tmp_dies group by wafer_slot, x, y having count(*) > 1",
   );
-  return { repeated: new Set(rows.map((r) => r.key)), extraFragments: rows.reduce((sum, r) => sum + r.n - 1, 0) };
+  return {
+    repeated: { wafers: rows.map((r) => r.wafer_slot), xs: rows.map((r) => r.x), ys: rows.map((r) => r.y) },
+    extraFragments: rows.reduce((sum, r) => sum + r.n - 1, 0),
+  };
 }
 
 async function errorBudget(tenantId: string): Promise<number> {
@@ -133,17 +140,17 @@ async function errorBudget(tenantId: string): Promise<number> {
  * once. Set-based: one read of the fragments, one delete and one COPY of the merged dies, whatever their number (a
  * delete and a COPY per die took over a minute for a file with some 3,600 split dies).
  */
-async function mergeRepeatedDies(client: pg.PoolClient, ctx: Context, repeated: Set<number>): Promise<void> {
-  if (repeated.size === 0) return;
-  const keys = [...repeated];
+async function mergeRepeatedDies(client: pg.PoolClient, ctx: Context, repeated: RepeatedDies): Promise<void> {
+  if (repeated.wafers.length === 0) return;
+  const keys = [repeated.wafers, repeated.xs, repeated.ys];
+  const named = "(wafer_slot, x, y) in (select * from unnest($1::int[], $2::int[], $3::int[]))";
   const { rows } = await client.query(
-    `select wafer_slot, x, y, temperature_k, site, sweep, first_line from tmp_dies
-      where (wafer_slot::float8 * 1e10 + (x + 50000)::float8 * 1e5 + (y + 50000)) = any($1::float8[]) order by wafer_slot, x, y, first_line`,
-    [keys],
+    `select wafer_slot, x, y, temperature_k, site, sweep, first_line from tmp_dies where ${named} order by wafer_slot, x, y, first_line`,
+    keys,
   );
-  const groups = new Map<number, typeof rows>();
+  const groups = new Map<string, typeof rows>();
   for (const r of rows) {
-    const key = dieKey(r.wafer_slot, r.x, r.y);
+    const key = `${r.wafer_slot} ${r.x} ${r.y}`;
     const parts = groups.get(key);
     if (parts) parts.push(r);
     else groups.set(key, [r]);
@@ -158,7 +165,7 @@ async function mergeRepeatedDies(client: pg.PoolClient, ctx: Context, repeated: 
     encoder.die(first.wafer_slot, first.x, first.y, result, first.site, sweep, first.first_line);
   }
   encoder.end();
-  await client.query(`delete from tmp_dies where (wafer_slot::float8 * 1e10 + (x + 50000)::float8 * 1e5 + (y + 50000)) = any($1::float8[])`, [keys]);
+  await client.query(`delete from tmp_dies where ${named}`, keys);
   await pipeline(Readable.from([encoder.take()]), client.query(copyFrom(COPY_TMP_DIES)));
 }
 

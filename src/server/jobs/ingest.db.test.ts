@@ -92,9 +92,11 @@ describe("probe lot ingest through the API and the worker (§4, §5, §9)", () =
   });
 
   it("merges thousands of dies split over the file into the same results as the file with each die in one run", async () => {
-    // 3,000 dies of 8 points, every die's sweep in two halves: first halves of all dies, then second halves.
+    // 3,000 dies of 8 points, every die's sweep in two halves: first halves of all dies, then second halves. Three
+    // more far from the centre: (0, 50000) and (1, −50000) once shared a merge key built from x and y.
     const header = "# lot: SPLIT-1\n# product: VD-NW40\n# chuck_temperature_k: 300\nwafer,die_x,die_y,bias_mv,current_na\n";
-    const dies = Array.from({ length: 3000 }, (_, i) => ({ x: i % 60, y: Math.floor(i / 60), g: 1.2e-6 + (i % 17) * 1e-8 }));
+    const dies = Array.from({ length: 3000 }, (_, i) => ({ x: i % 60, y: Math.floor(i / 60), g: 1.2e-6 + (i % 17) * 1e-8 }))
+      .concat([{ x: 0, y: 50_000, g: 1.3e-6 }, { x: 1, y: -50_000, g: 1.5e-6 }, { x: -70_000, y: 123_456, g: 1.4e-6 }]);
     const biases = [-10, -7, -4, -1, 2, 5, 8, 11];
     const row = (d: { x: number; y: number; g: number }, mv: number) => `1,${d.x},${d.y},${mv},${(d.g * mv * 1e-3 * 1e9).toFixed(6)}\n`;
     const half = (part: number[]) => dies.map((d) => part.map((mv) => row(d, mv)).join("")).join("");
@@ -104,11 +106,12 @@ describe("probe lot ingest through the API and the worker (§4, §5, §9)", () =
     const a = await ingestAndWait(tenant, split);
     const b = await ingestAndWait(tenant, whole);
     expect(a.status).toBe("done");
-    expect(a.report?.dies).toBe(3000);
-    expect(b.report?.dies).toBe(3000);
+    expect(a.report?.dies).toBe(3003);
+    expect(b.report?.dies).toBe(3003);
     const merged = (await (await api(tenant, "analyst", "/api/v1/lots/SPLIT-1/dies")).json()).dies;
     const single = (await (await api(tenant, "analyst", "/api/v1/lots/SPLIT-2/dies")).json()).dies;
-    expect(merged).toHaveLength(3000);
+    expect(merged).toHaveLength(3003);
+    expect(merged.map((d: { x: number; y: number }) => [d.x, d.y])).toEqual(single.map((d: { x: number; y: number }) => [d.x, d.y]));
     for (let i = 0; i < merged.length; i++) {
       expect(merged[i].points).toBe(8);
       expect(merged[i].conductanceS).toBeCloseTo(single[i].conductanceS, 15);

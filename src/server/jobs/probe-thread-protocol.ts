@@ -16,8 +16,11 @@ export type FromThread = { read: number } & (
   | { kind: "header"; header: ProbeFileHeader }
   /** Fragments completed, in file order. */
   | { kind: "batch"; batch: FragmentBatch }
-  /** One answers every chunk, after that chunk's batch, so the sender can pace itself. */
-  | { kind: "consumed" }
+  /**
+   * One answers every chunk, after that chunk's batch, so the sender can pace itself. It hands back the buffer of
+   * the chunk before (csv-parse keeps a view of a chunk's unfinished last row until it has read the next chunk).
+   */
+  | { kind: "consumed"; returned: ArrayBuffer | null }
   /** The last message of a read, as are the two below. */
   | { kind: "done"; summary: ProbeFileSummary }
   | { kind: "refused"; code: ProbeFileErrorCode; line: number | null; reason: string }

@@ -26,17 +26,21 @@ port.on("message", (message: ToThread) => {
 const waitForMessage = () => new Promise<void>((resolve) => (wake = resolve));
 
 function send(message: FromThread): void {
-  port.postMessage(message, message.kind === "batch" ? transferables(message.batch) : []);
+  const transfer = message.kind === "batch" ? transferables(message.batch) : message.kind === "consumed" && message.returned ? [message.returned] : [];
+  port.postMessage(message, transfer);
 }
 
 /** The chunks of the current read as they arrive; asking for the next one means the reader is done with the last. */
 async function* chunks(read: number): AsyncGenerator<Uint8Array> {
+  let previous: Uint8Array | null = null;
   for (;;) {
     while (inbox.length === 0) await waitForMessage();
     const chunk = inbox.shift()!;
     if (chunk === null) return;
     yield chunk;
-    send({ read, kind: "consumed" });
+    // The reader has parsed `chunk`, so nothing refers to the chunk before it any more.
+    send({ read, kind: "consumed", returned: previous === null ? null : (previous.buffer as ArrayBuffer) });
+    previous = chunk;
   }
 }
 

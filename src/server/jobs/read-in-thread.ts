@@ -4,8 +4,11 @@ import { fragmentItems, type ProbeFileBatchItem, ProbeFileError, type ProbeFileI
 import type { FromThread, ThreadReadOptions, ToThread } from "./probe-thread-protocol";
 
 // Bytes go to the thread in chunks of at least this size, at most IN_FLIGHT at a time: the thread always has the
-// next chunk to parse while this thread handles the fragments of the last, and no more than ~0.5 MB waits.
+// next chunk to parse while this thread handles the fragments of the last, and no more than ~0.5 MB waits. The
+// thread hands each chunk's buffer back once the parser is done with it, so a read reuses a handful of buffers:
+// one new buffer per chunk left up to ~50 MB of them waiting for the thread's garbage collector.
 const CHUNK_BYTES = 128 * 1024;
+const CHUNK_CAPACITY = 2 * CHUNK_BYTES;
 const IN_FLIGHT = 3;
 
 /**
@@ -103,24 +106,34 @@ export async function* readProbeFileBatchesInThread(
   const input = source[Symbol.asyncIterator]();
   const post = (message: ToThread, transfer: ArrayBuffer[] = []) => thread.postMessage(message, transfer);
   const inFlight: number[] = []; // byte sizes of the chunks sent and not yet answered
-  let pending: Uint8Array[] = [];
-  let pendingBytes = 0;
+  const spare: ArrayBuffer[] = []; // chunk buffers the thread gave back
+  let filling: Uint8Array | null = null;
+  let filled = 0;
   let ended = false;
   let finished = false; // the thread sent its final message for this read
   let consumedBytes = 0;
 
   const flush = () => {
-    if (pendingBytes === 0) return;
-    const bytes = new Uint8Array(pendingBytes); // a copy of our own: a stream's chunks may share a pooled buffer
-    let at = 0;
-    for (const piece of pending) {
-      bytes.set(piece, at);
-      at += piece.length;
+    if (filling === null || filled === 0) return;
+    inFlight.push(filled);
+    post({ kind: "chunk", read, bytes: filling.subarray(0, filled) }, [filling.buffer as ArrayBuffer]);
+    filling = null;
+    filled = 0;
+  };
+  // The source's pieces are copied into chunk buffers of our own (a stream's pieces may share a pooled buffer),
+  // which go to the thread and come back to be filled again.
+  const add = (piece: Uint8Array) => {
+    if (filling !== null && filled + piece.length > filling.length) flush();
+    if (piece.length > CHUNK_CAPACITY) {
+      inFlight.push(piece.length);
+      const own = new Uint8Array(piece);
+      post({ kind: "chunk", read, bytes: own }, [own.buffer]);
+      return;
     }
-    pending = [];
-    pendingBytes = 0;
-    inFlight.push(bytes.length);
-    post({ kind: "chunk", read, bytes }, [bytes.buffer]);
+    filling ??= new Uint8Array(spare.pop() ?? new ArrayBuffer(CHUNK_CAPACITY));
+    filling.set(piece, filled);
+    filled += piece.length;
+    if (filled >= CHUNK_BYTES) flush();
   };
   const topUp = async () => {
     while (!ended && inFlight.length < IN_FLIGHT) {
@@ -129,11 +142,7 @@ export async function* readProbeFileBatchesInThread(
         flush();
         post({ kind: "end", read });
         ended = true;
-      } else {
-        pending.push(next.value);
-        pendingBytes += next.value.length;
-        if (pendingBytes >= CHUNK_BYTES) flush();
-      }
+      } else add(next.value);
     }
   };
 
@@ -152,6 +161,7 @@ export async function* readProbeFileBatchesInThread(
           break;
         case "consumed":
           consumedBytes += inFlight.shift() ?? 0;
+          if (message.returned?.byteLength === CHUNK_CAPACITY && spare.length <= IN_FLIGHT) spare.push(message.returned);
           onProgress?.(consumedBytes);
           break;
         case "done":
