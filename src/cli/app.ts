@@ -53,14 +53,16 @@ export function buildIfNeeded(env: Record<string, string>): boolean {
 }
 
 /**
- * V8 flags for the app process. A young generation of up to 64 MB a semi-space (Node's default is 16 MB): an ingest
- * allocates some 100 MB/s of short-lived rows and die records, and with the default a part of them lived through two
- * scavenges, was promoted and piled up as garbage in the old generation until a full collection: in 6 of 10 runs
- * of bench:ingest the app's RSS climbed from about 240 to 490–550 MB during the job while the heap left after each
- * full collection stayed near 70 MB. With 64 MB it stayed at 240–280 MB in each of 3 runs, for the 1× lot and for 4×
- * it, and the job was no slower (Node.js documentation, "--max-semi-space-size").
+ * V8 flags for the app process. A young generation of up to 32 MB a semi-space (Node's default is 16 MB): an ingest
+ * allocates short-lived rows and die records fast, and with the default a part of them lived through two scavenges,
+ * was promoted and piled up as garbage in the old generation until a full collection: in 6 of 10 runs of
+ * bench:ingest the app's RSS climbed from about 240 to 490–550 MB during the job while the heap left after each full
+ * collection stayed near 70 MB (Node.js documentation, "--max-semi-space-size"). Since the CSV is parsed in a worker
+ * thread (src/server/jobs/read-in-thread.ts, its own heap), this thread makes less of that garbage: over six jobs of
+ * bench:ingest, peak RSS was 401 and 485 MB (1× and 4× lots) with 64 MB semi-spaces, 355–359 and 416–437 MB with
+ * 32 MB in two runs, and the jobs were no slower.
  */
-export const APP_NODE_FLAGS = ["--max-semi-space-size=64"];
+export const APP_NODE_FLAGS = ["--max-semi-space-size=32"];
 
 export async function serveApp(profile: Profile, env: Record<string, string>, restart: boolean): Promise<void> {
   if (runningRecorded(profile.dataDir, "app")) {
