@@ -13,8 +13,7 @@ const IN_FLIGHT = 3;
 
 /**
  * Threads for reading probe files, one file at a time each. A thread that finished its file (read to the end or
- * refused) is kept for the next one: a new thread per job compiled csv-parse afresh each time, and each one left
- * memory behind in the process (its RSS rose by some 30–50 MB a job over six bench:ingest jobs). A thread whose
+ * refused) is kept for the next one, so a job does not start a thread and compile csv-parse afresh. A thread whose
  * read was abandoned or failed is stopped instead. At most `keep` wait, unreferenced, so they never hold the
  * process open.
  */
@@ -60,8 +59,8 @@ export class ProbeThreads {
   }
 }
 
-// The thread is parsing garbage (a string per field): a young generation of 32 MB collects it as well as the app's
-// 64 MB semi-spaces would, without each thread's heap growing to the app's size.
+// The thread's garbage is csv-parse's strings, a few per field: a young generation of at most 32 MB is plenty for
+// it, and keeps the thread's heap from growing to the app's (src/cli/app.ts APP_NODE_FLAGS).
 const appThreads = new ProbeThreads(() => new Worker(new URL("./probe-thread.ts", import.meta.url), { resourceLimits: { maxYoungGenerationSizeMb: 32 } }));
 let reads = 0;
 
