@@ -2,7 +2,8 @@ import type { DieFragment } from "./probe-file-types";
 
 // Die fragments packed into a few flat typed arrays, so a batch crosses between threads as transferred buffers
 // (no copy, no structured clone of thousands of small objects). Per fragment: six numbers (wafer, x, y, length,
-// first line, last line: float64, so nothing out of int32 range wraps) and a float64 temperature (NaN for "none"); the points of all fragments end to end.
+// first line, last line: float64, so nothing out of int32 range wraps) and a float64 temperature (NaN for "none");
+// then the points of all fragments end to end.
 const META_FIELDS = 6;
 
 export interface FragmentBatch {
@@ -32,11 +33,6 @@ export class FragmentBatchWriter {
   private compliance = new Uint8Array(4096);
   private sites: (string | null)[] = [];
   private anySite = false;
-
-  /** Closed fragments not yet taken. */
-  get size(): number {
-    return this.count;
-  }
 
   /** Points of the open fragment so far. */
   get openLength(): number {
@@ -69,16 +65,6 @@ export class FragmentBatchWriter {
     this.anySite ||= site !== null;
     this.count++;
     this.openFrom = this.points;
-  }
-
-  /** A whole fragment at once. */
-  add(f: DieFragment): void {
-    if (this.points + f.length > this.biasV.length) this.growPoints(this.points + f.length);
-    this.biasV.set(f.biasV.subarray(0, f.length), this.points);
-    this.currentA.set(f.currentA.subarray(0, f.length), this.points);
-    this.compliance.set(f.compliance.subarray(0, f.length), this.points);
-    this.points += f.length;
-    this.end(f.wafer, f.x, f.y, f.temperatureK, f.site, f.firstLine, f.lastLine);
   }
 
   /** The closed fragments so far, in fresh arrays the caller may transfer; the open fragment stays. */

@@ -1,14 +1,6 @@
 import "server-only";
 import type { DieResult } from "@/domain/transport";
-import { SWEEP_BYTES_PER_POINT, writeSweep } from "./sweep-codec";
-
-/** A die's points, as the probe-file reader and the sweep codec hold them. */
-export interface SweepArrays {
-  biasV: Float64Array;
-  currentA: Float64Array;
-  compliance: Uint8Array;
-  length: number;
-}
+import { SWEEP_BYTES_PER_POINT, type SweepArrays, writeSweep } from "./sweep-codec";
 
 // Rows for COPY … FROM STDIN in PostgreSQL's binary format (PostgreSQL documentation, "COPY", section "Binary
 // Format"): an 11-byte signature, a flags word and a header-extension length, then per tuple an int16 field count

@@ -3,8 +3,8 @@ import { describe, expect, it } from "vitest";
 import { fixtureBytes, probeText, readAll, tinyChunks } from "@/domain/probe-file/probe-file-test-support";
 import { Worker } from "node:worker_threads";
 import { afterAll } from "vitest";
-import type { ReadOptions } from "@/domain/probe-file";
-import { ProbeThreads, readProbeFileInThread as readInPooledThread } from "./read-in-thread";
+import { fragmentItems, type ReadOptions } from "@/domain/probe-file";
+import { ProbeThreads, readProbeFileBatchesInThread } from "./read-in-thread";
 
 // The app starts its threads from its bundle; here they start from source, through tsx.
 let started = 0;
@@ -13,7 +13,8 @@ const threads = new ProbeThreads(() => {
   return new Worker(new URL("../../test/tsx-thread.mjs", import.meta.url), { argv: [new URL("./probe-thread.ts", import.meta.url).href] });
 });
 afterAll(() => threads.close());
-const readProbeFileInThread = (source: AsyncIterable<Uint8Array>, options?: ReadOptions) => readInPooledThread(source, options, threads);
+// Fragment by fragment, as readProbeFile yields them, to compare the two whole.
+const readProbeFileInThread = (source: AsyncIterable<Uint8Array>, options?: ReadOptions) => fragmentItems(readProbeFileBatchesInThread(source, options, threads));
 
 const FIXTURES = readdirSync(new URL("../../../fixtures/probe/", import.meta.url)).filter((name) => name.endsWith(".csv"));
 

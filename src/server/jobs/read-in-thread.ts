@@ -1,6 +1,6 @@
 import "server-only";
 import { Worker } from "node:worker_threads";
-import { fragmentItems, type ProbeFileBatchItem, ProbeFileError, type ProbeFileItem, type ProbeFileSummary, type ReadOptions } from "@/domain/probe-file";
+import { type ProbeFileBatchItem, ProbeFileError, type ProbeFileSummary, type ReadOptions } from "@/domain/probe-file";
 import type { FromThread, ThreadReadOptions, ToThread } from "./probe-thread-protocol";
 
 // Bytes go to the thread in chunks of at least this size, at most IN_FLIGHT at a time: the thread always has the
@@ -63,15 +63,6 @@ export class ProbeThreads {
 // it, and keeps the thread's heap from growing to the app's (src/cli/app.ts APP_NODE_FLAGS).
 const appThreads = new ProbeThreads(() => new Worker(new URL("./probe-thread.ts", import.meta.url), { resourceLimits: { maxYoungGenerationSizeMb: 32 } }));
 let reads = 0;
-
-/** readProbeFile in a worker thread (see readProbeFileBatchesInThread), one fragment at a time. */
-export function readProbeFileInThread(
-  source: AsyncIterable<Uint8Array>,
-  options: ReadOptions = {},
-  threads: ProbeThreads = appThreads,
-): AsyncGenerator<ProbeFileItem, ProbeFileSummary, undefined> {
-  return fragmentItems(readProbeFileBatchesInThread(source, options, threads));
-}
 
 /**
  * readProbeFileBatches run in a worker thread: the same header, fragments, summary and refusals (with their

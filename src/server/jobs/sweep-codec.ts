@@ -20,14 +20,15 @@ export function writeSweep(out: Buffer, at: number, bias: Float64Array, current:
   return at + length * SWEEP_BYTES_PER_POINT;
 }
 
-export interface DecodedSweep {
+/** A die's points, as the probe-file reader and this codec hold them. */
+export interface SweepArrays {
   biasV: Float64Array;
   currentA: Float64Array;
   compliance: Uint8Array;
   length: number;
 }
 
-export function decodeSweep(bytes: Buffer): DecodedSweep {
+export function decodeSweep(bytes: Buffer): SweepArrays {
   const length = Math.floor(bytes.length / 24);
   const biasV = new Float64Array(length);
   const currentA = new Float64Array(length);
@@ -41,9 +42,9 @@ export function decodeSweep(bytes: Buffer): DecodedSweep {
 }
 
 /** Joins the sweeps of a die that arrived in several runs of the file, in file order. */
-export function concatSweeps(parts: DecodedSweep[]): DecodedSweep {
+export function concatSweeps(parts: SweepArrays[]): SweepArrays {
   const length = parts.reduce((n, p) => n + p.length, 0);
-  const out: DecodedSweep = { biasV: new Float64Array(length), currentA: new Float64Array(length), compliance: new Uint8Array(length), length };
+  const out: SweepArrays = { biasV: new Float64Array(length), currentA: new Float64Array(length), compliance: new Uint8Array(length), length };
   let at = 0;
   for (const p of parts) {
     out.biasV.set(p.biasV.subarray(0, p.length), at);
