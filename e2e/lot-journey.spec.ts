@@ -30,6 +30,8 @@ describe("upload a lot, watch it finish, explore its wafer map (browser)", () =>
     await page.waitForURL(`${appUrl}/uploads`);
     await page.locator('input[type="file"]').setInputFiles(fixturePath("good-small.csv"));
     await page.getByText(/Done: lot TW2611-0147, 6 dies on 2 wafers/).waitFor({ timeout: 60_000 });
+    // The job list's lot cell turns into a link to the lot once the job is done, without a reload.
+    await page.getByRole("grid").getByRole("link", { name: "TW2611-0147" }).waitFor({ timeout: 30_000 });
   });
 
   it("draws exactly the API's out-of-window dies as flagged, and a die picked in the table is selected on the map with its drawer open", async () => {

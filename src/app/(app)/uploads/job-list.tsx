@@ -33,6 +33,9 @@ const columns: ColDef<JobView>[] = [
   {
     field: "lot",
     headerName: "Lot",
+    // The cell becomes a link when the job is done, while its value (the lot number) stays the same: the grid
+    // refreshes a cell only when its value changes, so this one is told it always has.
+    equals: () => false,
     cellRenderer: (p: { data?: JobView }) => (p.data?.lot && p.data.status === "done" ? <Link className="text-accent underline" href={`/lots/${encodeURIComponent(p.data.lot)}`}>{p.data.lot}</Link> : (p.data?.lot ?? "—")),
   },
   {
