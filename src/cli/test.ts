@@ -22,7 +22,9 @@ try {
   const env = await startServices(test);
   await migrate(env);
   buildIfNeeded(env);
-  await serveApp(test, env, true);
+  // Ingest jobs hand PostgreSQL their dies in segments of 256 KiB and up, not 4 MiB: the test files then cross
+  // segment boundaries (dies split across segments, wafers replaced segment by segment).
+  await serveApp(test, { ...env, INGEST_SEGMENT_BYTES: String(256 * 1024) }, true);
   await startWorker(test, env, "ingest,mail");
 
   const results = path.join(test.dataDir, "vitest-results.json");

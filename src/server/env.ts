@@ -18,6 +18,8 @@ const envSchema = z.object({
   LOTWARDEN_PROFILE: z.enum(["dev", "test"]).optional(),
   /** Largest probe file accepted, in bytes (default 4 GiB). */
   MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(4 * 1024 ** 3),
+  /** Smallest segment of COPY bytes an ingest job hands PostgreSQL at a time (default 4 MiB; the tests use less). */
+  INGEST_SEGMENT_BYTES: z.coerce.number().int().min(1024).default(4 * 1024 ** 2),
 });
 
 export type Env = z.infer<typeof envSchema>;

@@ -4,7 +4,7 @@ import { from as copyFrom } from "pg-copy-streams";
 import { afterAll, describe, expect, it } from "vitest";
 import type { DieResult } from "@/domain/transport";
 import { ownerPool } from "@/test/tenants";
-import { COPY_TMP_DIES, CREATE_TMP_DIES, DieCopyEncoder } from "./die-copy";
+import { COPY_HEADER, COPY_TMP_DIES, COPY_TRAILER, CREATE_TMP_DIES, DieCopyEncoder } from "./die-copy";
 import { decodeSweep, encodeSweep } from "./sweep-codec";
 
 const pool = ownerPool();
@@ -22,12 +22,11 @@ describe("COPY binary encoding of dies (PostgreSQL binary COPY format)", () => {
     const encoder = new DieCopyEncoder();
     encoder.die(3, -12, 40, result(), "S-µ1 «north»", sweep, 57);
     encoder.die(25, 0, 0, result({ conductanceS: null, offsetA: Number.NaN, r2: Number.POSITIVE_INFINITY, nonlinearity: null, modes: null, nonlinearityWindowOnly: true, bin: "NODATA", reason: "only 2 points within ±V_w = 12.9 mV\tof 0 V" }), null, none, 1_000_000);
-    encoder.end();
     const client = await pool.connect();
     try {
       await client.query("begin");
       await client.query(CREATE_TMP_DIES);
-      await pipeline(Readable.from([encoder.take()]), client.query(copyFrom(COPY_TMP_DIES)));
+      await pipeline(Readable.from([COPY_HEADER, encoder.take(), COPY_TRAILER]), client.query(copyFrom(COPY_TMP_DIES)));
       const { rows } = await client.query("select * from tmp_dies order by wafer_slot");
       expect(rows).toHaveLength(2);
       expect(rows[0]).toMatchObject({ wafer_slot: 3, x: -12, y: 40, conductance_s: 1.2345678901234567e-5, offset_a: -3e-12, r2: 0.999999, points_in_window: 7, window_v: 0.012925, nonlinearity: 0.0042, nonlinearity_window_only: false, modes: 0.159, bin: "PASS", reason: null, temperature_k: 300.15, site: "S-µ1 «north»", points: 3, first_line: 57 });

@@ -18,26 +18,30 @@ export const CREATE_TMP_DIES = `create temp table tmp_dies (
   window_v float8, nonlinearity float8, nonlinearity_window_only boolean, modes float8, bin text, reason text,
   temperature_k float8, site text, points integer, sweep bytea, first_line integer) on commit drop`;
 
-/** The COPY statement the encoder's bytes are for. */
+/**
+ * The job moves tmp_dies into dies segment by segment, each one a range of first lines (ingest-lot.ts): dies come
+ * from the reader in file order, so each segment's first lines follow the last one's.
+ */
+export const INDEX_TMP_DIES = "create index tmp_dies_first_line on tmp_dies (first_line)";
+
+/** The COPY statement the encoder's tuples are for, between COPY_HEADER and COPY_TRAILER. */
 export const COPY_TMP_DIES = `copy tmp_dies (${TMP_DIE_COLUMNS.join(", ")}) from stdin with (format binary)`;
 
-const SIGNATURE = Buffer.from("PGCOPY\n\xff\r\n\0", "latin1");
+/** Binary COPY's file header: the 11-byte signature, a flags word (no OIDs) and a zero header-extension length. */
+export const COPY_HEADER = Buffer.concat([Buffer.from("PGCOPY\n\xff\r\n\0", "latin1"), Buffer.alloc(8)]);
+/** Binary COPY's end marker: a field count of −1. */
+export const COPY_TRAILER = Buffer.from([0xff, 0xff]);
+
 const FIELDS = TMP_DIE_COLUMNS.length;
 
 /**
  * Encodes tmp_dies tuples into COPY binary bytes, in batches: `die` appends one tuple, `take` hands over what has
- * been written (the file header first, the trailer after `end`). One growing buffer, no allocation per field.
+ * been written. Tuples only: a COPY sends COPY_HEADER before them and COPY_TRAILER after. One growing buffer, no
+ * allocation per field.
  */
 export class DieCopyEncoder {
   private buffer = Buffer.allocUnsafe(256 * 1024);
   private at = 0;
-
-  constructor() {
-    this.ensure(SIGNATURE.length + 8);
-    this.at += SIGNATURE.copy(this.buffer, this.at);
-    this.at = this.buffer.writeInt32BE(0, this.at); // flags: no OIDs
-    this.at = this.buffer.writeInt32BE(0, this.at); // no header extension
-  }
 
   /** Bytes written and not yet taken. */
   get size(): number {
@@ -69,12 +73,6 @@ export class DieCopyEncoder {
     this.at = this.buffer.writeInt32BE(sweepBytes, this.at);
     this.at = writeSweep(this.buffer, this.at, sweep.biasV, sweep.currentA, sweep.compliance, sweep.length);
     this.int4(firstLine);
-  }
-
-  /** Appends the trailer; nothing may follow. */
-  end(): void {
-    this.ensure(2);
-    this.at = this.buffer.writeInt16BE(-1, this.at);
   }
 
   /** Everything written since the last take, as a new Buffer (the encoder reuses its own). */

@@ -7,22 +7,32 @@ import { ProbeFileError, type ProbeFileSummary, unpackFragments } from "@/domain
 import { analyzeDieArrays, type ExtractionSettings } from "@/domain/transport";
 import type { IngestReport } from "@/lib/schemas/ingest";
 import { pool } from "../db/client";
+import { env } from "../env";
 import { getProduct } from "../db/queries/products";
 import { systemScope, withScope } from "../db/scope";
 import { AppError } from "../http/errors";
 import { openRawFile } from "../storage/raw-files";
 import { judgeAfterIngest } from "../spc/judge-after-ingest";
 import { staticWindowInForce } from "../spc/static-window";
-import { COPY_TMP_DIES, CREATE_TMP_DIES, DieCopyEncoder } from "./die-copy";
-import { refreshLotTotals, replaceWafers } from "./lot-aggregates";
+import { COPY_HEADER, COPY_TMP_DIES, COPY_TRAILER, CREATE_TMP_DIES, DieCopyEncoder, INDEX_TMP_DIES } from "./die-copy";
+import { finishWafers, placeDies, placeSegment, refreshLotTotals, type WaferPlacement } from "./lot-aggregates";
 import { type ClaimedJob, failJob, heartbeat, retryJob } from "./queue";
 import { readProbeFileBatchesInThread } from "./read-in-thread";
+import { SegmentedCopy } from "./segmented-copy";
 import { concatSweeps, decodeSweep } from "./sweep-codec";
 
 const RESERVED_METADATA = new Set(["lot", "product", "chuck_temperature_k"]);
 // COPY rows go to PostgreSQL in batches of about this many bytes: a write per die (~400 bytes) cost a CopyData
 // message and a trip through the stream machinery each, about a third of the stream stage as measured by bench:ingest.
 const COPY_BATCH_BYTES = 64 * 1024;
+// Segments (see streamDies) of a tenth of what went before, between these bounds: the last one, which PostgreSQL
+// moves after the file has been read, is then at most a tenth of the whole, and even a file of several GB has
+// under a hundred. The first bound is INGEST_SEGMENT_BYTES (4 MiB; the tests set 256 KiB so that their files cross
+// segments).
+const MIN_SEGMENT_BYTES = env.INGEST_SEGMENT_BYTES;
+const MAX_SEGMENT_BYTES = 64 * 2 ** 20;
+// COPY bytes that may wait for PostgreSQL while it moves a segment; beyond it the job waits.
+const MAX_QUEUED_BYTES = 16 * 2 ** 20;
 
 interface Context {
   job: ClaimedJob;
@@ -67,48 +77,71 @@ function stageClock() {
   };
 }
 
-/**
- * Streams the raw file through the probe-file reader and the §5 computation into tmp_dies with COPY. The reader
- * runs in its own thread: parsing was the larger half of this stage's CPU, and this thread fits and encodes the
- * dies of one chunk while the reader parses the next.
- */
-async function streamDies(client: pg.PoolClient, ctx: Context, lease: Lease, objectKey: string, onProgress: (bytesRead: number) => void) {
-  let header: { metadata: Record<string, string>; ignoredColumns: string[] } | null = null;
-  const reader = readProbeFileBatchesInThread(await openRawFile(objectKey), { errorBudgetFraction: await errorBudget(ctx.job.tenantId), onProgress });
+/** One COPY per segment into tmp_dies, each placed (placeSegment) while the next is being written. */
+function segmentWriter(client: pg.PoolClient, placement: WaferPlacement): SegmentedCopy {
+  return new SegmentedCopy(client, {
+    copySql: COPY_TMP_DIES, header: COPY_HEADER, trailer: COPY_TRAILER, maxQueuedBytes: MAX_QUEUED_BYTES,
+    flush: (after, upTo) => placeSegment(client, placement, after, upTo),
+    segmentBytes: (sent) => Math.min(MAX_SEGMENT_BYTES, Math.max(MIN_SEGMENT_BYTES, sent / 10)),
+  });
+}
 
-  async function* batches(): AsyncGenerator<Buffer> {
-    const encoder = new DieCopyEncoder();
+/**
+ * Streams the raw file through the probe-file reader and the §5 computation into the lot's dies. The reader runs
+ * in its own thread: parsing was the larger half of this stage's CPU, and this thread fits and encodes the dies of
+ * one chunk while the reader parses the next. The dies go to PostgreSQL in segments (segmentWriter): PostgreSQL
+ * moves one segment into dies while this thread encodes the next, rather than moving all of them after the file
+ * (that took a third of a job's time). `onHeader` gets the file's header before any die is written and returns
+ * where the dies go.
+ */
+async function streamDies(
+  client: pg.PoolClient, ctx: Context, lease: Lease, objectKey: string, onProgress: (bytesRead: number) => void,
+  onHeader: (header: { metadata: Record<string, string> }) => Promise<WaferPlacement>,
+) {
+  let header: { metadata: Record<string, string>; ignoredColumns: string[] } | null = null;
+  let summary: ProbeFileSummary | null = null;
+  let placement: WaferPlacement | null = null;
+  let writer: SegmentedCopy | null = null;
+  const reader = readProbeFileBatchesInThread(await openRawFile(objectKey), { errorBudgetFraction: await errorBudget(ctx.job.tenantId), onProgress });
+  const encoder = new DieCopyEncoder();
+  let lastLine = 0;
+  try {
     for (;;) {
       const next = await reader.next();
       if (next.done) {
         summary = next.value;
-        encoder.end();
-        yield encoder.take();
-        return;
+        break;
       }
       const item = next.value;
       if (item.kind === "header") {
         header = item.header;
+        placement = await onHeader(header);
+        writer = segmentWriter(client, placement);
         continue;
       }
       for (const f of unpackFragments(item.batch)) {
         const temperatureK = f.temperatureK ?? ctx.chuckTemperatureK;
         const result = analyzeDieArrays(f.biasV, f.currentA, f.compliance, f.length, ctx.settings, temperatureK);
+        // Segments are ranges of first lines (placeSegment): the reader gives dies in file order.
+        if (f.firstLine <= lastLine) throw new Error(`the probe file reader gave a die of line ${f.firstLine} after one of line ${lastLine}`);
+        lastLine = f.firstLine;
         encoder.die(f.wafer, f.x, f.y, result, f.site, f, f.firstLine);
       }
-      if (encoder.size >= COPY_BATCH_BYTES) yield encoder.take();
+      if (encoder.size >= COPY_BATCH_BYTES) await writer!.write(encoder.take(), lastLine);
       if (lease.lost()) throw new Error("the job's lease was taken over by another worker");
     }
-  }
-  let summary: ProbeFileSummary | null = null;
-  const copy = client.query(copyFrom(COPY_TMP_DIES));
-  try {
-    await pipeline(Readable.from(batches(), { objectMode: false, highWaterMark: 64 }), copy);
+    if (!writer || !placement || !header) throw new Error("the probe file reader ended without a header");
+    await writer.write(encoder.take(), lastLine);
+    await writer.end();
+  } catch (error) {
+    // The COPY under way is cancelled, so that the connection can roll the transaction back.
+    await writer?.abort(error instanceof Error ? error : new Error(String(error)));
+    throw error;
   } finally {
     // When the COPY or the lease fails first, this stops the reader's thread and its download.
     await reader.return(undefined as never).catch(() => undefined);
   }
-  return { summary: summary!, header: header! };
+  return { summary, header, placement, segments: writer.segments };
 }
 
 interface RepeatedDies {
@@ -136,11 +169,12 @@ async function errorBudget(tenantId: string): Promise<number> {
 }
 
 /**
- * A die split over the file arrives as several rows of tmp_dies: join their points (in file order) and compute it
- * once. Set-based: one read of the fragments, one delete and one COPY of the merged dies, whatever their number (a
- * delete and a COPY per die took over a minute for a file with some 3,600 split dies).
+ * A die split over the file arrives as several rows of tmp_dies, the first of them in dies: join their points (in
+ * file order), compute the die once and put it in place of its fragments. Set-based: one read of the fragments,
+ * one delete from each table and one COPY of the merged dies, whatever their number (a delete and a COPY per die
+ * took over a minute for a file with some 3,600 split dies).
  */
-async function mergeRepeatedDies(client: pg.PoolClient, ctx: Context, repeated: RepeatedDies): Promise<void> {
+async function mergeRepeatedDies(client: pg.PoolClient, ctx: Context, placement: WaferPlacement, repeated: RepeatedDies): Promise<void> {
   if (repeated.wafers.length === 0) return;
   const keys = [repeated.wafers, repeated.xs, repeated.ys];
   const named = "(wafer_slot, x, y) in (select * from unnest($1::int[], $2::int[], $3::int[]))";
@@ -164,9 +198,10 @@ async function mergeRepeatedDies(client: pg.PoolClient, ctx: Context, repeated: 
     const result = analyzeDieArrays(sweep.biasV, sweep.currentA, sweep.compliance, sweep.length, ctx.settings, first.temperature_k);
     encoder.die(first.wafer_slot, first.x, first.y, result, first.site, sweep, first.first_line);
   }
-  encoder.end();
   await client.query(`delete from tmp_dies where ${named}`, keys);
-  await pipeline(Readable.from([encoder.take()]), client.query(copyFrom(COPY_TMP_DIES)));
+  await client.query(`delete from dies where tenant_id = $4 and lot_id = $5 and ${named}`, [...keys, placement.tenantId, placement.lotId]);
+  await pipeline(Readable.from([COPY_HEADER, encoder.take(), COPY_TRAILER]), client.query(copyFrom(COPY_TMP_DIES)));
+  await placeDies(client, placement, repeated);
 }
 
 async function upsertLot(client: pg.PoolClient, ctx: Context, productId: string, customerId: string | null, productCode: string, metadata: Record<string, string>): Promise<{ id: string; probedAt: Date }> {
@@ -225,22 +260,32 @@ export async function runIngestJob(job: ClaimedJob): Promise<"done" | "failed" |
     await client.query("begin");
     await client.query("select set_config('app.tenant_id', $1, true)", [job.tenantId]);
     await client.query(CREATE_TMP_DIES);
-    const streamed = await streamDies(client, ctx, lease, file.object_key, (b) => (bytesRead = b));
-    stages.lap("stream");
+    await client.query(INDEX_TMP_DIES);
+    // The lot is taken (and locked) as soon as the header is read, before any die: its dies go in as they come.
+    const streamed = await streamDies(client, ctx, lease, file.object_key, (b) => (bytesRead = b), async (header) => {
+      const lot = await upsertLot(client, ctx, product.id, customerId, product.code, header.metadata);
+      return { tenantId: job.tenantId, lotId: lot.id, jobId: job.id, probedAt: lot.probedAt, slots: new Set(), mayRepeat: false, savepoints: 0 };
+    });
+    stages.lap(`stream (${streamed.segments} segments)`);
     warnings = streamed.summary.warnings;
-    const { repeated, extraFragments } = await findRepeatedDies(client);
-    await mergeRepeatedDies(client, ctx, repeated);
-    // A temp table has no statistics until analysed: without them the planner misjudges the set-based steps below.
+    const placement = streamed.placement;
+    // Only when a segment met a die already in place can a die have come in fragments.
+    const { repeated, extraFragments } = placement.mayRepeat ? await findRepeatedDies(client) : { repeated: null, extraFragments: 0 };
+    if (repeated) await mergeRepeatedDies(client, ctx, placement, repeated);
+    // A temp table has no statistics until analysed: without them the planner misjudges the set-based steps below
+    // (it took tmp_dies for a few hundred rows and scanned it once per wafer to find the out-of-window dies).
     // Only the columns those steps group and join by: all columns, the sweeps included, took twice as long
     // (125,000 dies: 0.22–0.27 s against 0.10–0.14 s).
     await client.query("analyze tmp_dies (wafer_slot, x, y, bin)");
     stages.lap("merge");
-    const lot = await upsertLot(client, ctx, product.id, customerId, product.code, streamed.header.metadata);
-    const staticWindow = product.dieWindow === "static" ? await staticWindowInForce(client, job.tenantId, product.id, lot.probedAt) : null;
-    const wafers = await replaceWafers(client, job.tenantId, lot.id, job.id, lot.probedAt, product.dieWindow, product.dieWindowK, staticWindow);
-    stages.lap("wafers and dies");
-    await refreshLotTotals(client, job.tenantId, lot.id);
-    const bins = await client.query<{ bin: string; n: string }>("select bin, count(*) as n from tmp_dies group by bin");
+    const staticWindow = product.dieWindow === "static" ? await staticWindowInForce(client, job.tenantId, product.id, placement.probedAt) : null;
+    const wafers = await finishWafers(client, placement, product.dieWindow, product.dieWindowK, staticWindow);
+    stages.lap("wafers");
+    await refreshLotTotals(client, job.tenantId, placement.lotId);
+    const bins = await client.query<{ bin: string; n: string }>(
+      "select b.key as bin, sum(b.value::int) as n from wafers w, jsonb_each_text(w.bin_counts) b where w.tenant_id = $1 and w.lot_id = $2 and w.slot = any($3::int[]) group by b.key",
+      [job.tenantId, placement.lotId, wafers],
+    );
     const report: IngestReport = {
       rows: streamed.summary.rows, skippedRows: streamed.summary.skippedRows, warningsOmitted: streamed.summary.warningsOmitted,
       dies: streamed.summary.fragments - extraFragments, wafers, ignoredColumns: streamed.header.ignoredColumns,
@@ -258,7 +303,7 @@ export async function runIngestJob(job: ClaimedJob): Promise<"done" | "failed" |
     await client.query("commit");
     stages.lap("commit");
     console.info(`ingest job ${job.id}: ${report.dies} dies in ${stages.summary()}`);
-    judgedLotId = lot.id;
+    judgedLotId = placement.lotId;
     return "done";
   } catch (error) {
     await client.query("rollback").catch(() => undefined);

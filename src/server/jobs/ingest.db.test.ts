@@ -119,6 +119,39 @@ describe("probe lot ingest through the API and the worker (§4, §5, §9)", () =
     }
   });
 
+  it("replaces only the wafers a second file of the lot carries, and flags exactly the PASS dies outside each wafer's window", async () => {
+    // Each file is several of the tests' 256 KiB COPY segments, so its wafers arrive (and are replaced) segment by
+    // segment. Every wafer's dies lie in a narrow band of G but for one PASS die at 1.6 µS, which the wafer's
+    // PAT window must flag.
+    const biases = [-10, -7, -4, -1, 2, 5, 8, 11];
+    const file = (wafers: { slot: number; dies: number; g: number }[]) =>
+      "# lot: REPL-1\n# product: VD-NW40\n# chuck_temperature_k: 300\nwafer,die_x,die_y,bias_mv,current_na\n" +
+      wafers.map(({ slot, dies, g }) => Array.from({ length: dies }, (_, i) => {
+        const gi = i === 7 ? 1.6e-6 : g * (1 + ((i % 13) - 6) * 1e-4);
+        return biases.map((mv) => `${slot},${i % 50},${Math.floor(i / 50)},${mv},${(gi * mv * 1e-3 * 1e9).toFixed(6)}\n`).join("");
+      }).join("")).join("");
+    const tenant = await freshTenant("ingest-replace");
+    const first = await ingestAndWait(tenant, file([{ slot: 1, dies: 1500, g: 1.3e-6 }, { slot: 2, dies: 1500, g: 1.3e-6 }]));
+    const second = await ingestAndWait(tenant, file([{ slot: 2, dies: 1200, g: 1.4e-6 }, { slot: 3, dies: 1100, g: 1.2e-6 }]));
+    expect([first.status, second.status]).toEqual(["done", "done"]);
+    expect(second.report?.wafers).toEqual([2, 3]);
+
+    const lot = await (await api(tenant, "analyst", "/api/v1/lots/REPL-1")).json();
+    expect(lot.wafers.map((w: { wafer: number; tested: number }) => [w.wafer, w.tested])).toEqual([[1, 1500], [2, 1200], [3, 1100]]);
+    expect(lot.tested).toBe(3800);
+    const { dies } = await (await api(tenant, "analyst", "/api/v1/lots/REPL-1/dies")).json();
+    expect(dies).toHaveLength(3800);
+    for (const w of lot.wafers as { wafer: number; medianConductanceS: number; outOfWindow: number; windowLowS: number; windowHighS: number }[]) {
+      const own = dies.filter((d: { wafer: number }) => d.wafer === w.wafer);
+      expect(w.medianConductanceS).toBeCloseTo({ 1: 1.3e-6, 2: 1.4e-6, 3: 1.2e-6 }[w.wafer]!, 9); // wafer 2 is the second file's
+      const outside = own.filter((d: { bin: string; conductanceS: number }) => d.bin === "PASS" && (d.conductanceS < w.windowLowS || d.conductanceS > w.windowHighS));
+      expect(outside.map((d: { x: number; y: number }) => [d.x, d.y])).toEqual([[7, 0]]);
+      expect(own.filter((d: { outOfWindow: boolean }) => d.outOfWindow)).toEqual(outside);
+      expect(w.outOfWindow).toBe(1);
+    }
+    expect(lot.outOfWindow).toBe(3);
+  });
+
   for (const [file, code, line] of [["non-numeric.csv", "bad_value", 9], ["wafer-out-of-range.csv", "wafer_range", 16], ["two-temperatures.csv", "mixed_temperature", 11]] as const) {
     it(`fails ${file} naming line ${line}, and writes nothing`, async () => {
       const tenant = await freshTenant(`ingest-${code}`);
