@@ -259,6 +259,10 @@ export async function runIngestJob(job: ClaimedJob): Promise<"done" | "failed" |
   try {
     await client.query("begin");
     await client.query("select set_config('app.tenant_id', $1, true)", [job.tenantId]);
+    // No JIT compilation in the job: its statements are large but simple, and compiling them cost more than it
+    // saved (1,127,675 dies: the wafer aggregates 2.9 s with JIT, 0.43 s of it compiling, against 2.4 s without;
+    // the out-of-window update 1.3–1.6 s against 0.8–1.1 s).
+    await client.query("set local jit = off");
     await client.query(CREATE_TMP_DIES);
     await client.query(INDEX_TMP_DIES);
     // The lot is taken (and locked) as soon as the header is read, before any die: its dies go in as they come.
@@ -279,9 +283,10 @@ export async function runIngestJob(job: ClaimedJob): Promise<"done" | "failed" |
     await client.query("analyze tmp_dies (wafer_slot, x, y, bin)");
     stages.lap("merge");
     const staticWindow = product.dieWindow === "static" ? await staticWindowInForce(client, job.tenantId, product.id, placement.probedAt) : null;
-    const wafers = await finishWafers(client, placement, product.dieWindow, product.dieWindowK, staticWindow);
+    const finished = await finishWafers(client, placement, product.dieWindow, product.dieWindowK, staticWindow);
+    const wafers = finished.slots;
     stages.lap("wafers");
-    await refreshLotTotals(client, job.tenantId, placement.lotId);
+    await refreshLotTotals(client, placement, finished);
     const bins = await client.query<{ bin: string; n: string }>(
       "select b.key as bin, sum(b.value::int) as n from wafers w, jsonb_each_text(w.bin_counts) b where w.tenant_id = $1 and w.lot_id = $2 and w.slot = any($3::int[]) group by b.key",
       [job.tenantId, placement.lotId, wafers],
