@@ -83,13 +83,16 @@ describe("placing a job's dies segment by segment", () => {
     });
   });
 
-  it("stops taking savepoints after 60 segments and puts the rest in with ON CONFLICT", async () => {
+  it("stops taking savepoints after 60 segments and puts the rest in with ON CONFLICT, noting a die left out", async () => {
     await inJob(async (client, p) => {
       p.savepoints = 60;
-      await placeSegment(client, p, ...(await segment(client, [[1, 0, 0, 1e-6], [1, 0, 0, 2e-6]])));
+      await placeSegment(client, p, ...(await segment(client, [[1, 0, 0, 1e-6], [1, 1, 0, 2e-6]])));
+      expect(p.savepoints).toBe(60);
+      expect(p.mayRepeat).toBe(false); // every die of the segment went in
+      await placeSegment(client, p, ...(await segment(client, [[1, 2, 0, 3e-6], [1, 0, 0, 4e-6]], 3)));
       expect(p.savepoints).toBe(60);
       expect(p.mayRepeat).toBe(true);
-      expect(await count(client, "select conductance_s from dies where lot_id = $1", [p.lotId])).toEqual([[1e-6]]);
+      expect(await count(client, "select x, conductance_s from dies where lot_id = $1 order by x", [p.lotId])).toEqual([[0, 1e-6], [1, 2e-6], [2, 3e-6]]);
     });
   });
 
