@@ -35,7 +35,7 @@ export interface JobBody {
   lot: string | null;
   warnings: { line: number; message: string }[];
   error: { line: number | null; message: string; code: string | null } | null;
-  report: { dies: number; rows: number; ignoredColumns: string[]; wafers: number[] } | null;
+  report: { dies: number; rows: number; ignoredColumns: string[]; wafers: number[]; bins: Record<string, number> } | null;
 }
 
 export async function waitForJob(tenant: TestTenant, id: string, timeoutMs = 60_000): Promise<JobBody> {

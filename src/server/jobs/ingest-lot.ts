@@ -284,18 +284,13 @@ export async function runIngestJob(job: ClaimedJob): Promise<"done" | "failed" |
     stages.lap("merge");
     const staticWindow = product.dieWindow === "static" ? await staticWindowInForce(client, job.tenantId, product.id, placement.probedAt) : null;
     const finished = await finishWafers(client, placement, product.dieWindow, product.dieWindowK, staticWindow);
-    const wafers = finished.slots;
     stages.lap("wafers");
     await refreshLotTotals(client, placement, finished);
-    const bins = await client.query<{ bin: string; n: string }>(
-      "select b.key as bin, sum(b.value::int) as n from wafers w, jsonb_each_text(w.bin_counts) b where w.tenant_id = $1 and w.lot_id = $2 and w.slot = any($3::int[]) group by b.key",
-      [job.tenantId, placement.lotId, wafers],
-    );
     const report: IngestReport = {
       rows: streamed.summary.rows, skippedRows: streamed.summary.skippedRows, warningsOmitted: streamed.summary.warningsOmitted,
-      dies: streamed.summary.fragments - extraFragments, wafers, ignoredColumns: streamed.header.ignoredColumns,
+      dies: streamed.summary.fragments - extraFragments, wafers: finished.slots, ignoredColumns: streamed.header.ignoredColumns,
       attributes: Object.fromEntries(Object.entries(streamed.header.metadata).filter(([k]) => !RESERVED_METADATA.has(k))),
-      bins: Object.fromEntries(bins.rows.map((b) => [b.bin, Number(b.n)])), seconds: (Date.now() - started) / 1000,
+      bins: finished.binCounts, seconds: (Date.now() - started) / 1000,
     };
     await client.query("select set_config('app.job_runner', 'on', true)");
     const done = await client.query(

@@ -108,6 +108,7 @@ describe("probe lot ingest through the API and the worker (§4, §5, §9)", () =
     expect(a.status).toBe("done");
     expect(a.report?.dies).toBe(3003);
     expect(b.report?.dies).toBe(3003);
+    expect(Object.values(a.report?.bins ?? {}).reduce((n, k) => n + k, 0)).toBe(3003); // the merged dies, once each
     const merged = (await (await api(tenant, "analyst", "/api/v1/lots/SPLIT-1/dies")).json()).dies;
     const single = (await (await api(tenant, "analyst", "/api/v1/lots/SPLIT-2/dies")).json()).dies;
     expect(merged).toHaveLength(3003);
@@ -141,6 +142,10 @@ describe("probe lot ingest through the API and the worker (§4, §5, §9)", () =
     expect(lot.tested).toBe(3800);
     const { dies } = await (await api(tenant, "analyst", "/api/v1/lots/REPL-1/dies")).json();
     expect(dies).toHaveLength(3800);
+    // The second job's report counts the bins of its own dies, those of wafers 2 and 3.
+    const secondBins: Record<string, number> = {};
+    for (const d of dies as { wafer: number; bin: string }[]) if (d.wafer !== 1) secondBins[d.bin] = (secondBins[d.bin] ?? 0) + 1;
+    expect(second.report?.bins).toEqual(secondBins);
     for (const w of lot.wafers as { wafer: number; medianConductanceS: number; outOfWindow: number; windowLowS: number; windowHighS: number }[]) {
       const own = dies.filter((d: { wafer: number }) => d.wafer === w.wafer);
       expect(w.medianConductanceS).toBeCloseTo({ 1: 1.3e-6, 2: 1.4e-6, 3: 1.2e-6 }[w.wafer]!, 9); // wafer 2 is the second file's

@@ -102,7 +102,7 @@ describe("placing a job's dies segment by segment", () => {
       // Wafer 2: the same band, an OPEN die (no parametric G) and a HIGH die far out, neither of them PASS.
       const wafer2: TmpDie[] = [...band(2), [2, 98, 0, 1e-12, "OPEN"], [2, 99, 0, 5e-6, "HIGH"]];
       await placeSegment(client, p, ...(await segment(client, [...band(1), [1, 99, 0, 3e-6], ...wafer2])));
-      expect(await finishWafers(client, p, "pat", 6)).toEqual({ slots: [1, 2], medianConductanceS: 1e-6 });
+      expect(await finishWafers(client, p, "pat", 6)).toEqual({ slots: [1, 2], medianConductanceS: 1e-6, binCounts: { PASS: 81, OPEN: 1, HIGH: 1 } });
       const wafers = (await client.query("select slot, tested, pass, out_of_window, window_low_s, window_high_s, median_conductance_s, bin_counts from wafers where lot_id = $1 order by slot", [p.lotId])).rows;
       expect(wafers[0]).toMatchObject({ tested: 41, pass: 41, out_of_window: 1, bin_counts: { PASS: 41 } });
       expect(wafers[0].window_low_s).toBeLessThan(1e-6);
